@@ -1,0 +1,57 @@
+// npm test: a throwaway MariaDB and mail catcher in a temp dir, migrate, build, lint, type-check, then vitest.
+// Extra arguments go to vitest: `npm test -- tests/api/auth.test.ts`, `npm test -- --project unit`.
+import { mkdtempSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { startLocalServices } from './lib/services'
+import { applyMigrations } from './lib/migrate'
+import { runCommand, startAppServer } from './lib/app-server'
+import { freePort } from './lib/ports'
+
+const args = process.argv.slice(2)
+const onlyUnit = args.includes('--project') && args[args.indexOf('--project') + 1] === 'unit'
+const quick = process.env.TALLYMARK_QUICK === '1' || args.length > 0
+const tmp = mkdtempSync(join(tmpdir(), 'tallymark-test-'))
+const services = await startLocalServices({ dataDir: tmp, dbPort: await freePort(), smtpPort: await freePort(), bufferPool: '128M' })
+let app: Awaited<ReturnType<typeof startAppServer>> | undefined
+let code = 1
+
+async function cleanUp() {
+  await app?.stop()
+  await services.stop()
+  if (!process.env.TALLYMARK_KEEP_TMP) rmSync(tmp, { recursive: true, force: true })
+}
+process.on('SIGINT', () => void cleanUp().then(() => process.exit(130)))
+process.on('SIGTERM', () => void cleanUp().then(() => process.exit(143)))
+
+try {
+  await applyMigrations(services.databaseUrl)
+  const env: Record<string, string> = {
+    DATABASE_URL: services.databaseUrl,
+    SMTP_URL: services.smtpUrl,
+    TALLYMARK_MAIL_DIR: services.mailDir ?? '',
+    TALLYMARK_TEST_TMP: tmp,
+    NUXT_SESSION_PASSWORD: 'test-session-password-that-is-long-enough-0123456789',
+    STORAGE_DIR: join(tmp, 'uploads'),
+  }
+  if (!onlyUnit) {
+    if (process.env.TALLYMARK_SKIP_BUILD !== '1') await runCommand('npx', ['nuxt', 'build'])
+    const port = await freePort()
+    env.PUBLIC_URL = `http://127.0.0.1:${port}`
+    app = await startAppServer({ port, env })
+    env.TALLYMARK_TEST_URL = app.url
+  }
+  if (!quick) {
+    await runCommand('npx', ['eslint', '.'])
+    await runCommand('npx', ['vue-tsc', '--noEmit', '-p', '.nuxt/tsconfig.json'])
+  }
+  await runCommand('npx', ['vitest', 'run', ...args], env)
+  code = 0
+}
+catch (error) {
+  console.error(error instanceof Error ? error.message : error)
+}
+finally {
+  await cleanUp()
+}
+process.exit(code)

@@ -1,0 +1,37 @@
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2'
+import mysql from 'mysql2/promise'
+import * as schema from '../database/schema'
+
+export type Database = MySql2Database<typeof schema>
+export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
+export type DbOrTx = Database | Transaction
+
+let pool: mysql.Pool | undefined
+let database: Database | undefined
+
+export function useDb(): Database {
+  if (database) return database
+  pool = mysql.createPool({
+    uri: useAppConfig().databaseUrl,
+    connectionLimit: 20,
+    timezone: 'Z',
+    dateStrings: false,
+    supportBigNumbers: true,
+    charset: 'utf8mb4_unicode_ci',
+    connectTimeout: 5_000,
+  })
+  // CURRENT_TIMESTAMP and NOW() must be UTC whatever the server's own zone is.
+  pool.on('connection', (conn) => {
+    conn.query('SET time_zone = \'+00:00\'')
+  })
+  database = drizzle(pool, { schema, mode: 'default' })
+  return database
+}
+
+export async function closeDb() {
+  await pool?.end()
+  pool = undefined
+  database = undefined
+}
+
+export { schema as tables }

@@ -1,0 +1,3 @@
+import type { Config } from 'tailwindcss'
+
+export default <Partial<Config>>{ content: [] }

@@ -7,17 +7,25 @@ import { startLocalServices } from './lib/services'
 import { applyMigrations } from './lib/migrate'
 import { runCommand, startAppServer } from './lib/app-server'
 import { freePort } from './lib/ports'
+import { startFakeS3 } from './lib/fake-s3'
 
 const args = process.argv.slice(2)
 const onlyUnit = args.includes('--project') && args[args.indexOf('--project') + 1] === 'unit'
 const quick = process.env.TALLYMARK_QUICK === '1' || args.length > 0
 const tmp = mkdtempSync(join(tmpdir(), 'tallymark-test-'))
 const services = await startLocalServices({ dataDir: tmp, dbPort: await freePort(), smtpPort: await freePort(), bufferPool: '128M' })
+// A fake S3 beside the mail catcher, for the S3 storage driver's tests; the app itself keeps the local driver.
+const fakeS3 = await startFakeS3(join(tmp, 's3'), await freePort()).catch(async (error: unknown) => {
+  await services.stop()
+  rmSync(tmp, { recursive: true, force: true })
+  throw error
+})
 let app: Awaited<ReturnType<typeof startAppServer>> | undefined
 let code = 1
 
 async function cleanUp() {
   await app?.stop()
+  await fakeS3.stop()
   await services.stop()
   if (!process.env.TALLYMARK_KEEP_TMP) rmSync(tmp, { recursive: true, force: true })
 }
@@ -33,6 +41,10 @@ try {
     TALLYMARK_TEST_TMP: tmp,
     NUXT_SESSION_PASSWORD: 'test-session-password-that-is-long-enough-0123456789',
     STORAGE_DIR: join(tmp, 'uploads'),
+    TALLYMARK_TEST_S3_ENDPOINT: fakeS3.endpoint,
+    TALLYMARK_TEST_S3_BUCKET: fakeS3.bucket,
+    TALLYMARK_TEST_S3_ACCESS_KEY_ID: fakeS3.accessKeyId,
+    TALLYMARK_TEST_S3_SECRET_ACCESS_KEY: fakeS3.secretAccessKey,
   }
   if (!onlyUnit) {
     if (process.env.TALLYMARK_SKIP_BUILD !== '1') await runCommand('npx', ['nuxt', 'build'])

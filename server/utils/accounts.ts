@@ -103,7 +103,7 @@ export async function requestPasswordReset(event: H3Event, email: string) {
   const { token, hash } = newSecretToken()
   await useDb().insert(tables.passwordResetTokens).values({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + RESET_TTL_MS) })
   const teams = await listUserTeams(user.id)
-  await sendMail(passwordResetMail({ to: user.email, name: user.name, teamNames: teams.map(t => t.name), url: `${useAppConfig().publicUrl}/reset/${token}` }))
+  await sendMail(passwordResetMail({ to: user.email, name: user.name, teamNames: teams.map(t => t.name), url: `${useServerConfig().publicUrl}/reset/${token}` }))
   await recordAudit(event, 'auth.password_reset_requested', { userId: user.id })
 }
 

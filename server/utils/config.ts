@@ -19,7 +19,7 @@ function numberFrom(value: string | undefined, fallback: number): number {
   return Number.isFinite(n) && n > 0 ? n : fallback
 }
 
-export function useAppConfig(): AppConfig {
+export function useServerConfig(): AppConfig {
   if (cached) return cached
   const env = process.env
   cached = {

@@ -12,7 +12,7 @@ let database: Database | undefined
 export function useDb(): Database {
   if (database) return database
   pool = mysql.createPool({
-    uri: useAppConfig().databaseUrl,
+    uri: useServerConfig().databaseUrl,
     connectionLimit: 20,
     timezone: 'Z',
     dateStrings: false,

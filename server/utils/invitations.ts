@@ -36,7 +36,7 @@ export async function createInvitation(event: H3Event, access: TeamAccess, email
   await recordAudit(event, 'invitation.created', { teamId: access.team.id, userId: access.user.id, targetType: 'invitation', targetId: id, detail: { email, role } })
   await sendMail(invitationMail({
     to: email, teamName: access.team.name, inviterName: access.user.name, role: ROLE_LABELS[role].toLowerCase(),
-    url: `${useAppConfig().publicUrl}/invitations/${token}`, expiresDays: INVITATION_DAYS,
+    url: `${useServerConfig().publicUrl}/invitations/${token}`, expiresDays: INVITATION_DAYS,
   }))
   return { id, email, role, expiresAt }
 }

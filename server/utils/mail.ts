@@ -4,8 +4,8 @@ let transporter: Transporter | undefined
 
 function transport(): Transporter {
   // Local catcher and plain SMTP hosts alike: TLS is used when the URL says smtps:// or the host offers it.
-  transporter ??= nodemailer.createTransport(useAppConfig().smtpUrl, {
-    ignoreTLS: useAppConfig().smtpUrl.includes('127.0.0.1') || useAppConfig().smtpUrl.includes('localhost'),
+  transporter ??= nodemailer.createTransport(useServerConfig().smtpUrl, {
+    ignoreTLS: useServerConfig().smtpUrl.includes('127.0.0.1') || useServerConfig().smtpUrl.includes('localhost'),
   } as never)
   return transporter
 }
@@ -13,7 +13,7 @@ function transport(): Transporter {
 export interface OutgoingMail { to: string, subject: string, text: string, html: string }
 
 export async function sendMail(mail: OutgoingMail) {
-  await transport().sendMail({ from: useAppConfig().mailFrom, ...mail })
+  await transport().sendMail({ from: useServerConfig().mailFrom, ...mail })
 }
 
 export function escapeHtml(value: string): string {

@@ -1,0 +1,18 @@
+import type { Role } from '~~/shared/roles'
+
+export interface MeResponse {
+  user: { id: number, email: string, name: string }
+  teams: { slug: string, name: string, role: Role, timeZone: string }[]
+}
+
+/** The signed-in person and their teams; shared by every page through one keyed fetch. */
+export function useMe() {
+  const { loggedIn } = useUserSession()
+  const result = useFetch<MeResponse>('/api/me', {
+    key: 'me',
+    immediate: loggedIn.value,
+    watch: [loggedIn],
+    default: () => null as unknown as MeResponse,
+  })
+  return result
+}

@@ -7,5 +7,7 @@ export default withNuxt({
   rules: {
     'vue/multi-word-component-names': 'off',
     '@typescript-eslint/no-explicit-any': 'off',
+    // One-line callbacks such as `() => { done = true }` read better than three lines.
+    '@stylistic/max-statements-per-line': ['error', { max: 2 }],
   },
 })

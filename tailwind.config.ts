@@ -30,7 +30,7 @@ export default <Partial<Config>>{
         '2xl': ['1.75rem', { lineHeight: '2.25rem' }],
         '3xl': ['2.125rem', { lineHeight: '2.6rem' }],
       },
-      spacing: { 'tap': '2.75rem' },
+      spacing: { tap: '2.75rem' },
       borderRadius: { card: '0.5rem' },
       boxShadow: { card: '0 1px 0 rgba(29,37,34,0.06), 0 1px 3px rgba(29,37,34,0.08)' },
       maxWidth: { page: '72rem' },

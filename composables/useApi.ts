@@ -21,10 +21,14 @@ export function toApiProblem(error: unknown): ApiProblem {
   return { statusCode: 0, message: error instanceof Error ? error.message : 'Something went wrong.', fieldErrors: {}, data: {} }
 }
 
-export function useApi() {
-  const requestFetch = useRequestFetch()
-  return <T>(url: string, options: { method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE', body?: unknown, query?: Record<string, unknown> } = {}) =>
-    requestFetch<T>(url, options as never) as Promise<T>
+type ApiMethod = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE'
+
+/**
+ * $fetch without Nitro's route-type inference (which exhausts the type checker on template URLs).
+ * Responses are typed by the caller from shared/types.
+ */
+export function apiFetch<T = unknown>(url: string, options: { method?: ApiMethod, body?: unknown, query?: Record<string, unknown>, signal?: AbortSignal, headers?: Record<string, string> } = {}): Promise<T> {
+  return ($fetch as unknown as (u: string, o: object) => Promise<T>)(url, options)
 }
 
 /** Form state for one submit action: pending flag, the server's message and field errors. */

@@ -8,7 +8,7 @@ export function useSignedIn() {
     await refreshNuxtData('me')
     const next = typeof route.query.next === 'string' && route.query.next.startsWith('/') && !route.query.next.startsWith('//') ? route.query.next : null
     if (next) return navigateTo(next)
-    const me = await $fetch<MeResponse>('/api/me')
+    const me = await apiFetch<MeResponse>('/api/me')
     const target = teamSlug ?? (me.teams.find(t => t.slug === prefs.lastTeam) ?? me.teams[0])?.slug
     return navigateTo(target ? `/t/${target}` : '/account')
   }

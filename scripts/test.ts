@@ -55,7 +55,7 @@ try {
   }
   if (!quick) {
     await runCommand('npx', ['eslint', '.'])
-    await runCommand('npx', ['vue-tsc', '--noEmit', '-p', '.nuxt/tsconfig.json'])
+    await runCommand('npx', ['vue-tsc', '-b', '--noEmit'])
   }
   await runCommand('npx', ['vitest', 'run', ...args], env)
   code = 0

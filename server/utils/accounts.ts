@@ -25,12 +25,12 @@ export async function registerAccount(event: H3Event, input: RegisterInput) {
   }
   const passwordHash = await hashPassword(input.password)
   return await db.transaction(async (tx) => {
-    const [{ id }] = await tx.insert(tables.users).values({ email: input.email, name: input.name, passwordHash }).$returningId()
+    const id = insertedId(await tx.insert(tables.users).values({ email: input.email, name: input.name, passwordHash }).$returningId())
     const team = await createTeam(tx, { name: input.teamName, ownerId: id })
     await recordAudit(event, 'auth.register', { userId: id, teamId: team.id }, tx)
     return { user: { id, email: input.email, name: input.name, sessionVersion: 1 }, team }
-  }).catch((error: { code?: string }) => {
-    if (error.code === 'ER_DUP_ENTRY') throw httpError(409, 'An account with this e-mail already exists.', { email: ['An account with this e-mail already exists.'] })
+  }).catch((error: unknown) => {
+    if (isDuplicateKey(error, 'users_email_unique')) throw httpError(409, 'An account with this e-mail already exists.', { email: ['An account with this e-mail already exists.'] })
     throw error
   })
 }

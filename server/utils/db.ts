@@ -34,4 +34,22 @@ export async function closeDb() {
   database = undefined
 }
 
+/**
+ * True for a unique-key violation (of the index named `key`, when given). drizzle wraps driver errors in
+ * DrizzleQueryError, so the MariaDB code and message are on the cause.
+ */
+export function isDuplicateKey(error: unknown, key?: string): boolean {
+  type DriverError = { code?: string, sqlMessage?: string }
+  const e = error as (DriverError & { cause?: DriverError }) | null | undefined
+  const driver = e?.code ? e : e?.cause
+  return driver?.code === 'ER_DUP_ENTRY' && (!key || Boolean(driver.sqlMessage?.includes(`'${key}'`)))
+}
+
 export { schema as tables }
+
+/** The id of the one row an insert created ($returningId gives an array). */
+export function insertedId(rows: { id: number }[]): number {
+  const id = rows[0]?.id
+  if (!id) throw new Error('The insert returned no id.')
+  return id
+}

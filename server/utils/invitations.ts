@@ -32,7 +32,7 @@ export async function createInvitation(event: H3Event, access: TeamAccess, email
   countAttempt(rules)
   const { token, hash } = newSecretToken()
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000)
-  const [{ id }] = await db.insert(tables.invitations).values({ teamId: access.team.id, email, role, tokenHash: hash, invitedBy: access.user.id, expiresAt }).$returningId()
+  const id = insertedId(await db.insert(tables.invitations).values({ teamId: access.team.id, email, role, tokenHash: hash, invitedBy: access.user.id, expiresAt }).$returningId())
   await recordAudit(event, 'invitation.created', { teamId: access.team.id, userId: access.user.id, targetType: 'invitation', targetId: id, detail: { email, role } })
   await sendMail(invitationMail({
     to: email, teamName: access.team.name, inviterName: access.user.name, role: ROLE_LABELS[role].toLowerCase(),
@@ -89,16 +89,18 @@ export async function acceptInvitation(event: H3Event, token: string, input: { n
     const [claimed] = await tx.update(tables.invitations).set({ acceptedAt: new Date() })
       .where(and(eq(tables.invitations.id, invitation.id), isNull(tables.invitations.acceptedAt), isNull(tables.invitations.revokedAt)))
     if (claimed.affectedRows !== 1) throw httpError(404, GONE)
-    let userId = existing?.id
-    if (!userId) {
-      ;[{ id: userId }] = await tx.insert(tables.users).values({ email: invitation.email, name: input.name!, passwordHash: passwordHash! }).$returningId()
-    }
+    const userId = existing?.id
+      ?? insertedId(await tx.insert(tables.users).values({ email: invitation.email, name: input.name!, passwordHash: passwordHash! }).$returningId())
     if (!(await findMembership(invitation.teamId, userId, tx))) {
       await tx.insert(tables.memberships).values({ teamId: invitation.teamId, userId, role: invitation.role })
     }
     await tx.update(tables.invitations).set({ acceptedBy: userId }).where(eq(tables.invitations.id, invitation.id))
     await recordAudit(event, 'invitation.accepted', { teamId: invitation.teamId, userId, targetType: 'invitation', targetId: invitation.id }, tx)
     return { id: userId, sessionVersion: existing?.sessionVersion ?? 1 }
+  }).catch((error: unknown) => {
+    // Another invitation for the same new address was accepted at the same moment: that one made the account.
+    if (isDuplicateKey(error, 'users_email_unique')) throw httpError(409, `An account for ${invitation.email} was just created. Sign in with it, then open the link again.`)
+    throw error
   })
   if (!signedIn) await startSession(event, user)
   return { team: { slug: invitation.teamSlug, name: invitation.teamName }, role: invitation.role }

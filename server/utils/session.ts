@@ -23,7 +23,7 @@ export async function revokeSessions(userId: number, db: DbOrTx = useDb()) {
 export async function resolveSession(event: H3Event): Promise<CurrentUser | undefined> {
   const session = await getUserSession(event)
   if (!session.user?.id) return undefined
-  const cfg = useAppConfig()
+  const cfg = useServerConfig()
   const now = Date.now()
   const [row] = await useDb().select({
     id: tables.users.id, email: tables.users.email, name: tables.users.name, sessionVersion: tables.users.sessionVersion,
@@ -35,6 +35,6 @@ export async function resolveSession(event: H3Event): Promise<CurrentUser | unde
     return undefined
   }
   // Refresh the idle clock at most once a minute, so most requests do not re-seal the cookie.
-  if (now - session.seenAt > 60_000) await setUserSession(event, { seenAt: now })
+  if (now - session.seenAt > 60_000) await setUserSession(event, { version: session.version, issuedAt: session.issuedAt, seenAt: now })
   return { id: row.id, email: row.email, name: row.name }
 }

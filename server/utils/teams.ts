@@ -16,7 +16,7 @@ async function uniqueSlug(db: DbOrTx, name: string): Promise<string> {
 
 export async function createTeam(db: DbOrTx, input: { name: string, ownerId: number, timeZone?: string, isDemo?: boolean }) {
   const slug = await uniqueSlug(db, input.name)
-  const [{ id }] = await db.insert(tables.teams).values({ slug, name: input.name, timeZone: input.timeZone ?? 'UTC', isDemo: input.isDemo ?? false }).$returningId()
+  const id = insertedId(await db.insert(tables.teams).values({ slug, name: input.name, timeZone: input.timeZone ?? 'UTC', isDemo: input.isDemo ?? false }).$returningId())
   await db.insert(tables.memberships).values({ teamId: id, userId: input.ownerId, role: 'owner' })
   return { id, slug, name: input.name }
 }

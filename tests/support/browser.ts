@@ -39,5 +39,5 @@ export async function shot(page: Page, name: string) {
 
 /** Waits until Nuxt has hydrated the page, so clicks reach Vue handlers. */
 export async function hydrated(page: Page) {
-  await page.waitForFunction(() => Boolean((window as any).useNuxtApp?.() ?? document.querySelector('#__nuxt')?.hasAttribute('data-v-app')))
+  await page.waitForFunction(() => document.documentElement.dataset.hydrated === 'true')
 }

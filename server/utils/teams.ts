@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto'
 import { and, asc, eq, like } from 'drizzle-orm'
 import type { Role } from '../../shared/roles'
 
@@ -15,8 +16,19 @@ async function uniqueSlug(db: DbOrTx, name: string): Promise<string> {
 }
 
 export async function createTeam(db: DbOrTx, input: { name: string, ownerId: number, timeZone?: string, isDemo?: boolean }) {
-  const slug = await uniqueSlug(db, input.name)
-  const id = insertedId(await db.insert(tables.teams).values({ slug, name: input.name, timeZone: input.timeZone ?? 'UTC', isDemo: input.isDemo ?? false }).$returningId())
+  let slug = await uniqueSlug(db, input.name)
+  let id: number
+  for (let attempt = 1; ; attempt++) {
+    try {
+      id = insertedId(await db.insert(tables.teams).values({ slug, name: input.name, timeZone: input.timeZone ?? 'UTC', isDemo: input.isDemo ?? false }).$returningId())
+      break
+    }
+    catch (error) {
+      // A team of the same name took this address a moment ago (a transaction's reads may not see it): add a random part.
+      if (attempt >= 3 || !isDuplicateKey(error, 'teams_slug_unique')) throw error
+      slug = `${slugify(input.name)}-${randomBytes(3).toString('hex')}`
+    }
+  }
   await db.insert(tables.memberships).values({ teamId: id, userId: input.ownerId, role: 'owner' })
   return { id, slug, name: input.name }
 }

@@ -27,16 +27,17 @@ describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('team foundatio
     await shot(page, `foundation-${size}-register-error`)
     await page.getByLabel('Password').fill(STRONG_PASSWORD)
     await page.getByRole('button', { name: 'Create account and team' }).click()
-    await page.waitForURL(/\/t\/millpond-resale/)
+    await page.waitForURL(url => url.pathname.startsWith('/t/millpond-resale'))
     await expect.poll(() => page.locator('h1').textContent()).toContain(`Millpond Resale ${size}`)
     await shot(page, `foundation-${size}-team-home`)
+    const teamPath = new URL(page.url()).pathname
 
     await page.goto('/account')
     await hydrated(page)
     await page.getByRole('button', { name: 'Sign out', exact: true }).click()
-    await page.waitForURL(/\/login/)
-    await page.goto('/t/millpond-resale')
-    await page.waitForURL(/\/login\?next=/)
+    await page.waitForURL(url => url.pathname === '/login')
+    await page.goto(`${teamPath}/members`)
+    await page.waitForURL(url => url.pathname === '/login' && url.searchParams.has('next'))
 
     await hydrated(page)
     await page.getByLabel('E-mail').fill(ownerEmail)
@@ -45,10 +46,9 @@ describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('team foundatio
     await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('do not match')
     await page.getByLabel('Password').fill(STRONG_PASSWORD)
     await page.getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(/\/t\/millpond-resale/)
-    const teamPath = new URL(page.url()).pathname
+    // Back where the sign-in page was asked for.
+    await page.waitForURL(url => url.pathname === `${teamPath}/members`)
 
-    await page.goto(`${teamPath}/members`)
     await hydrated(page)
     const inviteeEmail = uniqueEmail(`invitee-${size}`)
     await page.getByLabel('E-mail').fill(inviteeEmail)
@@ -71,7 +71,7 @@ describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('team foundatio
     await second.getByLabel('Choose a password').fill(STRONG_PASSWORD)
     await shot(second, `foundation-${size}-accept`)
     await second.getByRole('button', { name: 'Create account and join' }).click()
-    await second.waitForURL(new RegExp(`${teamPath}$`))
+    await second.waitForURL(url => url.pathname === teamPath)
     await expect.poll(() => second.getByText('Your role here').textContent()).toContain('Editor')
 
     await page.reload()
@@ -90,7 +90,7 @@ describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('team foundatio
     await third.keyboard.press('Tab')
     await third.keyboard.type(STRONG_PASSWORD)
     await third.keyboard.press('Enter')
-    await third.waitForURL(new RegExp(teamPath))
+    await third.waitForURL(url => url.pathname === teamPath)
 
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
     expect(overflow, 'no horizontal scrolling').toBeLessThanOrEqual(0)

@@ -1,6 +1,9 @@
 // HTTP client for API tests: one cookie jar per simulated person, JSON in and out.
+import { randomBytes } from 'node:crypto'
 import { readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
+import { expect } from 'vitest'
+import type { Role } from '../../shared/roles'
 
 export const baseUrl = process.env.TALLYMARK_TEST_URL ?? ''
 if (!baseUrl) throw new Error('Run API tests through npm test (it starts the database and the app).')
@@ -55,18 +58,73 @@ export class Person {
 }
 
 let counter = 0
+// A random part as well: each test file has its own counter, and files may start in the same millisecond.
 export function uniqueEmail(prefix = 'user'): string {
-  return `${prefix}.${Date.now().toString(36)}.${++counter}@example.test`
+  return `${prefix}.${Date.now().toString(36)}${randomBytes(3).toString('hex')}.${++counter}@example.test`
+}
+
+/** A team name no other test uses (slugs are derived from names). */
+export function uniqueTeamName(base = 'Test Team'): string {
+  return `${base} ${randomBytes(4).toString('hex')}`
 }
 
 export const STRONG_PASSWORD = 'glazed-teapot-under-felt'
 
 /** Registers a new person with a new team and returns them signed in. */
-export async function newOwner(teamName = 'Test Team') {
+export async function newOwner(teamName = 'Test Team', name = 'Owner Person') {
   const person = new Person(uniqueEmail('owner'), STRONG_PASSWORD)
-  const res = await person.post('/api/auth/register', { email: person.email, password: person.password, name: 'Owner Person', teamName })
+  const res = await person.post('/api/auth/register', { email: person.email, password: person.password, name, teamName })
   if (res.status !== 201) throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`)
-  return { person, team: res.body.team as { slug: string, name: string }, user: res.body.user as { id: number } }
+  return { person, team: res.body.team as { slug: string, name: string }, user: res.body.user as { id: number, email: string, name: string } }
+}
+
+/** Another client (browser) of the same account, with its own cookie jar, signed in. */
+export async function secondSession(person: Person): Promise<Person> {
+  const other = new Person(person.email, person.password)
+  await other.login()
+  return other
+}
+
+/** The last path segment of a link from a mail: the secret token. */
+export function tokenOf(link: string): string {
+  return new URL(link).pathname.split('/').pop()!
+}
+
+/** An owner invites `email`; returns the invitation id, the mail and the token from its link. */
+export async function invite(owner: Person, teamSlug: string, email: string, role: Role) {
+  const before = mailTo(email).length
+  const res = await owner.post(`/api/teams/${teamSlug}/invitations`, { email, role })
+  if (res.status !== 201) throw new Error(`invite ${email} failed: ${res.status} ${JSON.stringify(res.body)}`)
+  const mail = await waitForMail(email, before + 1)
+  return { id: res.body.invitation.id as number, mail, token: tokenOf(linkIn(mail, '/invitations/')) }
+}
+
+/** A new account joins the team through an invitation and is signed in; returns it with its user id. */
+export async function newMember(owner: Person, teamSlug: string, role: Role, name = `${role[0]!.toUpperCase()}${role.slice(1)} Person`) {
+  const person = new Person(uniqueEmail(role), STRONG_PASSWORD)
+  const { token } = await invite(owner, teamSlug, person.email, role)
+  const res = await person.post(`/api/invitations/${token}/accept`, { name, password: person.password })
+  if (res.status !== 200) throw new Error(`accept failed: ${res.status} ${JSON.stringify(res.body)}`)
+  const me = await person.get('/api/me')
+  return { person, id: me.body.user.id as number }
+}
+
+/** Checks the error body shape { statusCode, message, fieldErrors? } and returns the body. */
+export function expectError(res: ApiResponse, status: number, message?: string | RegExp) {
+  expect(res.status, JSON.stringify(res.body)).toBe(status)
+  expect(res.headers.get('content-type')).toMatch(/^application\/json/)
+  expect(res.body.statusCode).toBe(status)
+  expect(typeof res.body.message).toBe('string')
+  expect(res.body.message.length).toBeGreaterThan(0)
+  if (message !== undefined) expect(res.body.message).toMatch(message)
+  for (const key of Object.keys(res.body)) expect(['statusCode', 'message', 'fieldErrors', 'retryAfter'], `unexpected key ${key}`).toContain(key)
+  if (res.body.fieldErrors !== undefined) {
+    for (const messages of Object.values(res.body.fieldErrors)) {
+      expect(Array.isArray(messages)).toBe(true)
+      for (const m of messages as unknown[]) expect(typeof m).toBe('string')
+    }
+  }
+  return res.body as { statusCode: number, message: string, fieldErrors?: Record<string, string[]>, retryAfter?: number }
 }
 
 export interface CaughtMail { to: string[], raw: string, subject: string, text: string }

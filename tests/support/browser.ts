@@ -37,7 +37,13 @@ export async function shot(page: Page, name: string) {
   await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: true })
 }
 
-/** Waits until Nuxt has hydrated the page, so clicks reach Vue handlers. */
+/** Waits until Nuxt has hydrated and the current page has loaded its data, so clicks reach Vue handlers. */
 export async function hydrated(page: Page) {
-  await page.waitForFunction(() => document.documentElement.dataset.hydrated === 'true')
+  try {
+    await page.waitForFunction(() => document.documentElement.dataset.hydrated === 'true' && document.documentElement.dataset.ready === location.pathname)
+  }
+  catch (error) {
+    await shot(page, `hydration-timeout-${Date.now()}`)
+    throw new Error(`${page.url()} did not hydrate: ${(await page.locator('body').innerText()).slice(0, 300)}`, { cause: error })
+  }
 }

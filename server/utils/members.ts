@@ -49,3 +49,9 @@ export async function removeMember(event: H3Event, access: TeamAccess, userId: n
     await recordAudit(event, leaving ? 'member.left' : 'member.removed', { teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId }, tx)
   })
 }
+
+export async function endMemberSessions(event: H3Event, access: TeamAccess, userId: number) {
+  if (!(await findMembership(access.team.id, userId))) throw notFound('No such member in this team.')
+  await revokeSessions(userId)
+  await recordAudit(event, 'member.sessions_ended', { teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId })
+}

@@ -1,1 +1,3 @@
 export * from './accounts'
+export * from './photos'
+export * from './wiki'

@@ -5,7 +5,9 @@ import mysql from 'mysql2/promise'
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import * as schema from '../schema'
+import type { Role } from '../../../shared/roles'
 import { DEMO_MEMBERS, DEMO_PASSWORD, DEMO_TEAM } from './demo-team'
+import { seedDemoReference } from './reference'
 
 export type SeedDb = ReturnType<typeof drizzle<typeof schema>>
 
@@ -19,12 +21,19 @@ export async function seedDemoTeam(url: string): Promise<{ created: boolean }> {
     // Same scrypt format as nuxt-auth-utils' hashPassword, so the demo members can sign in.
     const passwordHash = await new Hash(new Scrypt({})).make(DEMO_PASSWORD)
     await db.transaction(async (tx) => {
-      const [{ id: teamId }] = await tx.insert(schema.teams).values({ ...DEMO_TEAM, isDemo: true }).$returningId()
+      const teamId = (await tx.insert(schema.teams).values({ ...DEMO_TEAM, isDemo: true }).$returningId())[0]!.id
+      const idsByRole = new Map<Role, number[]>()
       for (const member of DEMO_MEMBERS) {
         const [user] = await tx.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, member.email)).limit(1)
         const userId = user?.id ?? (await tx.insert(schema.users).values({ email: member.email, name: member.name, passwordHash }).$returningId())[0]!.id
         await tx.insert(schema.memberships).values({ teamId, userId, role: member.role })
+        idsByRole.set(member.role, [...(idsByRole.get(member.role) ?? []), userId])
       }
+      const role = (r: Role) => idsByRole.get(r) ?? []
+      await seedDemoReference(tx, teamId, {
+        editors: [...role('owner'), ...role('editor')],
+        noteAuthors: [...role('contributor'), ...role('editor'), ...role('owner')],
+      })
     })
     return { created: true }
   }

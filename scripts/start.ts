@@ -8,6 +8,8 @@ import { demoSignInLines, seedDemoTeam } from '../server/database/seed'
 
 const dataDir = resolve(process.env.TALLYMARK_DATA_DIR || '.data')
 const port = Number(process.env.PORT ?? 3000)
+// The seed stores demo photos where the app will read them.
+process.env.STORAGE_DIR ??= join(dataDir, 'uploads')
 const services = await startLocalServices({
   dataDir,
   dbPort: Number(process.env.TALLYMARK_DB_PORT ?? 3307),
@@ -37,7 +39,7 @@ try {
     DATABASE_URL: services.databaseUrl,
     SMTP_URL: services.smtpUrl,
     NUXT_SESSION_PASSWORD: process.env.NUXT_SESSION_PASSWORD ?? localSecret(join(dataDir, 'session-password')),
-    STORAGE_DIR: process.env.STORAGE_DIR ?? join(dataDir, 'uploads'),
+    STORAGE_DIR: process.env.STORAGE_DIR,
     PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${port}`,
   }
   app = await startAppServer({ port, env, inheritOutput: true })

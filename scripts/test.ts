@@ -57,7 +57,12 @@ try {
     await runCommand('npx', ['eslint', '.'])
     await runCommand('npx', ['vue-tsc', '-b', '--noEmit'])
   }
-  await runCommand('npx', ['vitest', 'run', ...args], env)
+  if (args.length) await runCommand('npx', ['vitest', 'run', ...args], env)
+  else {
+    // Browser tests run after the API tests, so their timings do not suffer from the API suite's load.
+    await runCommand('npx', ['vitest', 'run', '--project', 'unit', '--project', 'api'], env)
+    await runCommand('npx', ['vitest', 'run', '--project', 'browser'], env)
+  }
   code = 0
 }
 catch (error) {

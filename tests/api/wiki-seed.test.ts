@@ -10,7 +10,7 @@ describe('demo reference seed', async () => {
   const url = process.env.DATABASE_URL
   if (!url) throw new Error('DATABASE_URL is not set: run API tests through npm test.')
   const started = Date.now()
-  const { created } = await seedDemoTeam(url)
+  const { created } = await seedDemoTeam(url, { photos: 3 })
   const seconds = (Date.now() - started) / 1000
   const reference = buildDemoReference()
   const editor = new Person(DEMO_MEMBERS.find(m => m.role === 'editor')!.email, DEMO_PASSWORD)
@@ -30,7 +30,7 @@ describe('demo reference seed', async () => {
   it('seeds in well under 10 seconds, once', async () => {
     // Another file may have seeded first in this run; then only the second-run check applies.
     if (created) expect(seconds).toBeLessThan(10)
-    expect(await seedDemoTeam(url)).toEqual({ created: false })
+    expect(await seedDemoTeam(url, { photos: 3 })).toEqual({ created: false })
   })
 
   it('holds every demo entry, each at its first revision', async () => {
@@ -77,5 +77,23 @@ describe('demo reference seed', async () => {
     expect(notes.length).toBeGreaterThanOrEqual(3)
     const writers = DEMO_MEMBERS.filter(m => m.role !== 'viewer').map(m => m.name)
     for (const note of notes) expect(writers).toContain(note.author.name)
+  })
+})
+
+describe('demo photos', () => {
+  it('draws photos for the first demo marks, served like uploads', async () => {
+    const editor = new Person(DEMO_MEMBERS.find(m => m.role === 'editor')!.email, DEMO_PASSWORD)
+    await editor.login()
+    const withPhoto: { photos: { thumbUrl: string }[] }[] = []
+    for (let page = 1; page <= 3; page++) {
+      const list = await editor.get(`/api/teams/${DEMO_TEAM.slug}/marks?pageSize=100&page=${page}`)
+      expect(list.status).toBe(200)
+      withPhoto.push(...list.body.items.filter((m: { photos: unknown[] }) => m.photos.length > 0))
+    }
+    // The seed above asked for 3 drawn photos.
+    expect(withPhoto).toHaveLength(3)
+    const photo = await fetch(`${process.env.TALLYMARK_TEST_URL}${withPhoto[0]!.photos[0]!.thumbUrl}`, { headers: { cookie: editor.cookieHeader() } })
+    expect(photo.status).toBe(200)
+    expect(photo.headers.get('content-type')).toMatch(/^image\/(webp|jpeg)$/)
   })
 })

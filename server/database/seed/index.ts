@@ -8,10 +8,14 @@ import * as schema from '../schema'
 import type { Role } from '../../../shared/roles'
 import { DEMO_MEMBERS, DEMO_PASSWORD, DEMO_TEAM } from './demo-team'
 import { seedDemoReference } from './reference'
+import { seedDemoPhotos } from './photos'
+import { createStorageDriver } from '../../utils/storage'
+import { useServerConfig } from '../../utils/config'
 
 export type SeedDb = ReturnType<typeof drizzle<typeof schema>>
 
-export async function seedDemoTeam(url: string): Promise<{ created: boolean }> {
+/** `photos`: how many demo marks get a drawn photo (0 skips drawing). */
+export async function seedDemoTeam(url: string, options: { photos?: number } = {}): Promise<{ created: boolean }> {
   const connection = await mysql.createConnection({ uri: url, timezone: 'Z' })
   try {
     await connection.query('SET time_zone = \'+00:00\'')
@@ -20,8 +24,10 @@ export async function seedDemoTeam(url: string): Promise<{ created: boolean }> {
     if (existing) return { created: false }
     // Same scrypt format as nuxt-auth-utils' hashPassword, so the demo members can sign in.
     const passwordHash = await new Hash(new Scrypt({})).make(DEMO_PASSWORD)
+    let teamId = 0
+    let ownerId = 0
     await db.transaction(async (tx) => {
-      const teamId = (await tx.insert(schema.teams).values({ ...DEMO_TEAM, isDemo: true }).$returningId())[0]!.id
+      teamId = (await tx.insert(schema.teams).values({ ...DEMO_TEAM, isDemo: true }).$returningId())[0]!.id
       const idsByRole = new Map<Role, number[]>()
       for (const member of DEMO_MEMBERS) {
         const [user] = await tx.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, member.email)).limit(1)
@@ -30,11 +36,15 @@ export async function seedDemoTeam(url: string): Promise<{ created: boolean }> {
         idsByRole.set(member.role, [...(idsByRole.get(member.role) ?? []), userId])
       }
       const role = (r: Role) => idsByRole.get(r) ?? []
+      ownerId = role('owner')[0]!
       await seedDemoReference(tx, teamId, {
         editors: [...role('owner'), ...role('editor')],
         noteAuthors: [...role('contributor'), ...role('editor'), ...role('owner')],
       })
     })
+    // Photos go to storage, outside the transaction: a failure here leaves a complete team without pictures.
+    const photos = options.photos ?? 80
+    if (photos > 0) await seedDemoPhotos(db, teamId, ownerId, createStorageDriver(useServerConfig()), photos)
     return { created: true }
   }
   finally {

@@ -3,7 +3,7 @@ import { join, resolve } from 'node:path'
 import { startLocalServices } from './lib/services'
 import { applyMigrations } from './lib/migrate'
 import { localSecret } from './lib/local-secrets'
-import { runCommand, startAppServer } from './lib/app-server'
+import { runCommand, startAppServer, startDevServer } from './lib/app-server'
 import { demoSignInLines, seedDemoTeam } from '../server/database/seed'
 
 const dataDir = resolve(process.env.TALLYMARK_DATA_DIR || '.data')
@@ -34,7 +34,8 @@ try {
   await applyMigrations(services.databaseUrl)
   const { created } = await seedDemoTeam(services.databaseUrl)
   if (created) console.log('Demo team seeded.')
-  if (process.env.TALLYMARK_SKIP_BUILD !== '1') await runCommand('npx', ['nuxt', 'build'])
+  const dev = process.argv.includes('--dev')
+  if (!dev && process.env.TALLYMARK_SKIP_BUILD !== '1') await runCommand('npx', ['nuxt', 'build'])
   const env = {
     DATABASE_URL: services.databaseUrl,
     SMTP_URL: services.smtpUrl,
@@ -42,7 +43,7 @@ try {
     STORAGE_DIR: process.env.STORAGE_DIR,
     PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${port}`,
   }
-  app = await startAppServer({ port, env, inheritOutput: true })
+  app = dev ? await startDevServer({ port, env }) : await startAppServer({ port, env, inheritOutput: true })
   app.process.on('exit', code => void shutdown(code ?? 1))
   console.log(`\nTallymark is running on ${env.PUBLIC_URL}`)
   if (services.mailDir) console.log(`Outgoing e-mail is caught locally: ${services.mailDir}`)

@@ -49,3 +49,21 @@ export function runCommand(command: string, args: string[], env: Record<string, 
     child.on('error', reject)
   })
 }
+
+/** `nuxt dev` on the same port, for npm run dev (hot reload, no build). */
+export async function startDevServer(options: { port: number, env: Record<string, string | undefined> }): Promise<AppServer> {
+  const child = spawn('npx', ['nuxt', 'dev', '--host', '127.0.0.1', '--port', String(options.port)], {
+    env: { ...process.env, ...options.env }, stdio: 'inherit',
+  })
+  let exited = false
+  child.on('exit', () => { exited = true })
+  return {
+    url: `http://127.0.0.1:${options.port}`,
+    process: child,
+    stop: async () => {
+      if (exited) return
+      child.kill('SIGTERM')
+      for (let i = 0; i < 100 && !exited; i++) await new Promise(r => setTimeout(r, 100))
+    },
+  }
+}

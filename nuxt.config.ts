@@ -1,6 +1,6 @@
 // Tallymark: root layout (pages/, components/, stores/ at the top), see DEVELOPERS.md.
 export default defineNuxtConfig({
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/content', '@nuxt/eslint'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/content', '@nuxt/eslint', 'nuxt-security'],
   devtools: { enabled: false },
   app: {
     head: {
@@ -35,4 +35,36 @@ export default defineNuxtConfig({
   typescript: { strict: true },
   telemetry: false,
   eslint: { config: { stylistic: true } },
+  // Security headers and a nonce-based Content-Security-Policy (OWASP ASVS 5.0 V3). HSTS and the
+  // __Host- session cookie are switched on at run time in production (server/plugins/production-security.ts).
+  security: {
+    nonce: true,
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        // @nuxt/content queries its handbook database in the browser with WASM SQLite.
+        'script-src': ['\'self\'', '\'nonce-{{nonce}}\'', '\'strict-dynamic\'', '\'wasm-unsafe-eval\''],
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        'img-src': ['\'self\'', 'data:', 'blob:'],
+        'font-src': ['\'self\''],
+        'connect-src': ['\'self\''],
+        'worker-src': ['\'self\'', 'blob:'],
+        'object-src': ['\'none\''],
+        'base-uri': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        'upgrade-insecure-requests': false,
+      },
+      strictTransportSecurity: false,
+      crossOriginEmbedderPolicy: false,
+      permissionsPolicy: { camera: ['self'], geolocation: [], microphone: [] },
+    },
+    // Markdown notes legitimately contain "<" and "javascript:" as text; they are rendered safely instead.
+    xssValidator: false,
+    // Sign-in, reset and invitation have throttles of their own (server/utils/throttle.ts).
+    rateLimiter: false,
+    requestSizeLimiter: { maxRequestSizeInBytes: 2_000_000, maxUploadFileRequestInBytes: 16_000_000, throwError: true },
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+  },
 })

@@ -56,6 +56,6 @@ export function assertCanEditOwn(access: TeamAccess, createdBy: number | null) {
   throw forbidden('Contributors can change only what they added themselves.')
 }
 
-export function sessionCookieName(): string {
-  return useRuntimeConfig().session.name ?? 'nuxt-session'
+export function sessionCookieName(event: H3Event): string {
+  return useRuntimeConfig(event).session.name ?? 'nuxt-session'
 }

@@ -92,6 +92,17 @@ describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('team foundatio
     await third.keyboard.press('Enter')
     await third.waitForURL(url => url.pathname === teamPath)
 
+    // The handbook by client-side navigation: @nuxt/content queries it in the browser (WASM SQLite),
+    // which must work under the Content-Security-Policy.
+    await page.goto(teamPath)
+    await hydrated(page)
+    await page.getByRole('link', { name: 'Open the handbook' }).click()
+    await page.waitForURL(url => url.pathname === '/handbook')
+    await page.getByRole('link', { name: 'Safety' }).first().click()
+    await page.waitForURL(url => url.pathname === '/handbook/safety')
+    await expect.poll(() => page.locator('article h1').first().textContent()).toContain('Safety')
+    await shot(page, `foundation-${size}-handbook`)
+
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
     expect(overflow, 'no horizontal scrolling').toBeLessThanOrEqual(0)
     expect(problems.filter(p => !p.includes('401') && !p.includes('400'))).toEqual([])

@@ -1,6 +1,6 @@
 // npm test: a throwaway MariaDB and mail catcher in a temp dir, migrate, build, lint, type-check, then vitest.
 // Extra arguments go to vitest: `npm test -- tests/api/auth.test.ts`, `npm test -- --project unit`.
-import { mkdtempSync, rmSync } from 'node:fs'
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { startLocalServices } from './lib/services'
@@ -60,8 +60,13 @@ try {
   if (args.length) await runCommand('npx', ['vitest', 'run', ...args], env)
   else {
     // Browser tests run after the API tests, so their timings do not suffer from the API suite's load.
-    await runCommand('npx', ['vitest', 'run', '--project', 'unit', '--project', 'api'], env)
-    await runCommand('npx', ['vitest', 'run', '--project', 'browser'], env)
+    const reports = [join(tmp, 'vitest-unit-api.json'), join(tmp, 'vitest-browser.json')]
+    const failures: unknown[] = []
+    // Both runs go ahead even when the first fails, so one report shows everything that is broken.
+    await runCommand('npx', ['vitest', 'run', '--project', 'unit', '--project', 'api', '--reporter=default', '--reporter=json', `--outputFile.json=${reports[0]}`], env).catch(e => failures.push(e))
+    await runCommand('npx', ['vitest', 'run', '--project', 'browser', '--reporter=default', '--reporter=json', `--outputFile.json=${reports[1]}`], env).catch(e => failures.push(e))
+    printTotals(reports)
+    if (failures.length) throw failures[0]
   }
   code = 0
 }
@@ -72,3 +77,18 @@ finally {
   await cleanUp()
 }
 process.exit(code)
+
+/** One plain closing line over both vitest runs: "tests: N passed, N failed, N skipped". */
+function printTotals(files: string[]) {
+  let passed = 0
+  let failed = 0
+  let skipped = 0
+  for (const file of files) {
+    if (!existsSync(file)) continue
+    const report = JSON.parse(readFileSync(file, 'utf8')) as { numPassedTests: number, numFailedTests: number, numPendingTests: number, numTodoTests: number }
+    passed += report.numPassedTests
+    failed += report.numFailedTests
+    skipped += report.numPendingTests + report.numTodoTests
+  }
+  console.log(`\ntests: ${passed} passed, ${failed} failed, ${skipped} skipped`)
+}

@@ -14,7 +14,7 @@ export default <NitroErrorHandler> function (error, event) {
       ? DATABASE_UNAVAILABLE
       : error.unhandled ? 'Something went wrong on the server. Please try again.' : error.message,
   }
-  if (unavailable) setResponseHeader(event, 'Retry-After', '5')
+  if (unavailable) setResponseHeader(event, 'Retry-After', 5)
   // Nitro adds the request path to its own 404s; the API's error shape does not carry it.
   for (const [key, value] of Object.entries(data)) if (value !== undefined && key !== 'path') body[key] = value
   if (statusCode >= 500) console.error('[api]', event.method, event.path, error.cause ?? error)

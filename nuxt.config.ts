@@ -1,6 +1,6 @@
 // Tallymark: root layout (pages/, components/, stores/ at the top), see DEVELOPERS.md.
 export default defineNuxtConfig({
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/content', '@nuxt/eslint', 'nuxt-security'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/content', '@nuxt/eslint', 'nuxt-security', '@vite-pwa/nuxt'],
   devtools: { enabled: false },
   app: {
     head: {
@@ -10,6 +10,11 @@ export default defineNuxtConfig({
         { name: 'viewport', content: 'width=device-width, initial-scale=1' },
         { name: 'description', content: 'The shared reference of a resale team: maker\'s marks, makers, materials and sale outcomes.' },
         { name: 'theme-color', content: '#1f3b36' },
+      ],
+      // The web app manifest and icons of the installable app (pwa below; icons drawn by scripts/icons.ts).
+      link: [
+        { rel: 'manifest', href: '/manifest.webmanifest' },
+        { rel: 'apple-touch-icon', href: '/icons/apple-touch-icon-180.png' },
       ],
     },
   },
@@ -35,6 +40,77 @@ export default defineNuxtConfig({
   typescript: { strict: true },
   telemetry: false,
   eslint: { config: { stylistic: true } },
+  // The installable app and its offline behaviour (composables/useOffline*.ts, plugins/offline.client.ts). With SSR the default
+  // navigateFallback ('/') is never precached, so it is off; pages are cached as they are visited (NetworkFirst)
+  // and an unvisited page falls back to a cached page of the same team. API answers are never cached by the
+  // service worker: the team's reference is kept in IndexedDB by composables/useOfflineReference.ts.
+  pwa: {
+    registerType: 'autoUpdate',
+    manifest: {
+      id: '/',
+      name: 'Tallymark',
+      short_name: 'Tallymark',
+      description: 'The shared reference of a resale team: maker\'s marks, makers, materials and categories, also with no signal.',
+      lang: 'en',
+      start_url: '/',
+      scope: '/',
+      display: 'standalone',
+      orientation: 'portrait',
+      // kiln-700 and paper from tailwind.config.ts.
+      theme_color: '#1f3b36',
+      background_color: '#f6f1e7',
+      icons: [
+        { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+        { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+        { src: '/icons/maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
+        { src: '/icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      ],
+    },
+    workbox: {
+      navigateFallback: null,
+      // The app shell: every built script, style and font, and the icons. OCR files are cached on first use
+      // or by "Download for offline" (they are about 7 MB, too much to fetch on every install).
+      globPatterns: ['_nuxt/**/*.{js,css,woff2,svg,png,webp,json}', 'icons/*.png'],
+      globIgnores: ['**/ocr/**'],
+      cleanupOutdatedCaches: true,
+      runtimeCaching: [
+        {
+          urlPattern: ({ request }) => request.mode === 'navigate',
+          handler: 'NetworkFirst',
+          options: {
+            cacheName: 'tallymark-pages',
+            networkTimeoutSeconds: 6,
+            matchOptions: { ignoreSearch: true },
+            expiration: { maxEntries: 60 },
+            cacheableResponse: { statuses: [200] },
+            plugins: [{
+              // A redirect (to sign-in) is never kept as the page.
+              cacheWillUpdate: async ({ response }) => response.redirected ? null : response,
+              // Stringified into sw.js: no outer variables. A page never visited here is answered by a
+              // cached page of the same team (the app then renders the right page in the browser).
+              handlerDidError: async ({ request }) => {
+                const cache = await caches.open('tallymark-pages')
+                const url = new URL(request.url)
+                const team = /^\/t\/[^/]+/.exec(url.pathname)?.[0]
+                const tries = team ? [`${team}/offline`, `${team}/read-base`, team] : ['/']
+                for (const path of tries) {
+                  const hit = await cache.match(new URL(path, url.origin).href, { ignoreSearch: true })
+                  if (hit) return hit
+                }
+                const keys = await cache.keys()
+                return (keys.length ? await cache.match(keys[keys.length - 1]!) : undefined) ?? Response.error()
+              },
+            }],
+          },
+        },
+        {
+          urlPattern: ({ url }) => url.pathname.startsWith('/ocr/'),
+          handler: 'CacheFirst',
+          options: { cacheName: 'tallymark-ocr', expiration: { maxEntries: 10 } },
+        },
+      ],
+    },
+  },
   // Security headers and a nonce-based Content-Security-Policy (OWASP ASVS 5.0 V3). HSTS and the
   // __Host- session cookie are switched on at run time in production (server/plugins/production-security.ts).
   security: {

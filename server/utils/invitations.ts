@@ -20,8 +20,10 @@ export async function listInvitations(teamId: number) {
 
 export async function createInvitation(event: H3Event, access: TeamAccess, email: string, role: Role) {
   const rules: ThrottleRule[] = [
-    { key: `invite:team:${access.team.id}`, limit: 50, windowSeconds: 60 * 60 },
-    { key: `invite:ip:${clientAddress(event)}`, limit: 100, windowSeconds: 60 * 60 },
+    // Per team and per inviting account (the account), and a looser cap per address, shared by everyone behind one NAT.
+    { key: `invite:team:${access.team.id}`, limit: 100, windowSeconds: 60 * 60 },
+    { key: `invite:user:${access.user.id}`, limit: 100, windowSeconds: 60 * 60 },
+    { key: `invite:ip:${clientAddress(event)}`, limit: 1000, windowSeconds: 60 * 60 },
   ]
   assertNotThrottled(rules, 'Too many invitations sent in the last hour. Try again later.')
   const db = useDb()

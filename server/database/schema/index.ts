@@ -1,3 +1,6 @@
 export * from './accounts'
 export * from './photos'
 export * from './wiki'
+export * from './ledger'
+export * from './search'
+export * from './reports'

@@ -8,6 +8,7 @@ import * as schema from '../schema'
 import type { Role } from '../../../shared/roles'
 import { DEMO_MEMBERS, DEMO_PASSWORD, DEMO_TEAM } from './demo-team'
 import { seedDemoReference } from './reference'
+import { seedDemoLedger } from './demo-ledger'
 import { seedDemoPhotos } from './photos'
 import { createStorageDriver } from '../../utils/storage'
 import { useServerConfig } from '../../utils/config'
@@ -41,6 +42,7 @@ export async function seedDemoTeam(url: string, options: { photos?: number } = {
         editors: [...role('owner'), ...role('editor')],
         noteAuthors: [...role('contributor'), ...role('editor'), ...role('owner')],
       })
+      await seedDemoLedger(tx, teamId, { sourcers: [...role('owner'), ...role('editor'), ...role('contributor')] })
     })
     // Photos go to storage, outside the transaction: a failure here leaves a complete team without pictures.
     const photos = options.photos ?? 80

@@ -10,6 +10,7 @@ import { wikiChangedFields, wikiDefinedOnly, wikiLinkTargets, wikiNewContent } f
 import { wikiExistingIds } from './refs'
 import { wikiConfigs } from './registry'
 import { wikiLikeEscape, type WikiBaseRow, type WikiFieldErrors, type WikiTypeConfig } from './types'
+import { searchTrackChange } from '../search/changes'
 
 export interface WikiLoadedEntry<C extends object = any> { row: WikiBaseRow & Record<string, unknown>, content: C }
 type WikiSaveResult = Pick<WikiSaved, 'id' | 'revision'>
@@ -178,6 +179,8 @@ async function recordRevision(tx: Transaction, access: TeamAccess, config: WikiT
     restoredFrom: fields.restoredFrom ?? null, changedFields: fields.changedFields,
     snapshot: fields.snapshot as Record<string, unknown>, authorId: access.user.id,
   })
+  // Creates, edits and restores all record a revision: the search change log is written beside it.
+  await searchTrackChange(tx, access.team.id, config.type, id)
 }
 
 export async function wikiCreateEntry(access: TeamAccess, type: WikiEntryType, input: object): Promise<WikiSaveResult> {
@@ -307,18 +310,24 @@ export async function wikiRestoreRevision(access: TeamAccess, type: WikiEntryTyp
 export async function wikiSoftDelete(access: TeamAccess, type: WikiEntryType, id: number) {
   const config = wikiConfigs[type]
   const t = config.table
-  const [result] = await useDb().update(t).set({ deletedAt: new Date(), deletedBy: access.user.id } as never)
-    .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNull(t.deletedAt)))
-  if (result.affectedRows !== 1) throw notFoundEntry(config)
+  await wikiTransaction(async (tx) => {
+    const [result] = await tx.update(t).set({ deletedAt: new Date(), deletedBy: access.user.id } as never)
+      .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNull(t.deletedAt)))
+    if (result.affectedRows !== 1) throw notFoundEntry(config)
+    await searchTrackChange(tx, access.team.id, config.type, id)
+  })
   return { id, deleted: true }
 }
 
 export async function wikiUndelete(access: TeamAccess, type: WikiEntryType, id: number) {
   const config = wikiConfigs[type]
   const t = config.table
-  const [result] = await useDb().update(t).set({ deletedAt: null, deletedBy: null } as never)
-    .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNotNull(t.deletedAt)))
-  if (result.affectedRows !== 1) throw notFound(`No ${config.label} with this id in the deleted list.`)
+  await wikiTransaction(async (tx) => {
+    const [result] = await tx.update(t).set({ deletedAt: null, deletedBy: null } as never)
+      .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNotNull(t.deletedAt)))
+    if (result.affectedRows !== 1) throw notFound(`No ${config.label} with this id in the deleted list.`)
+    await searchTrackChange(tx, access.team.id, config.type, id)
+  })
   return { id, deleted: false }
 }
 
@@ -340,6 +349,7 @@ export async function wikiPurge(access: TeamAccess, type: WikiEntryType, id: num
     await tx.delete(l).where(and(eq(l.teamId, teamId), eq(l.toType, config.type), eq(l.toId, id)))
     await config.deleteChildren?.(tx, teamId, id)
     await tx.delete(t).where(and(eq(t.id, id), eq(t.teamId, teamId)))
+    await searchTrackChange(tx, teamId, config.type, id)
   })
   // After the commit: a failed file delete leaves an orphan file, never a photo row without an entry.
   if (config.photoType) await deleteEntryPhotos(teamId, config.photoType, [id])

@@ -5,6 +5,7 @@ import { renderMarkdown } from '../../../shared/markdown'
 import { roleAtLeast } from '../../../shared/roles'
 import type { NoteCreateInput, NotePatchInput, WikiEntryType } from '../../../shared/schemas/wiki'
 import { wikiConfigs } from './registry'
+import { searchTrackChange } from '../search/changes'
 
 type NoteRow = typeof tables.entryNotes.$inferSelect
 
@@ -53,9 +54,14 @@ export async function wikiListNotes(access: TeamAccess, type: WikiEntryType, id:
 
 export async function wikiAddNote(access: TeamAccess, type: WikiEntryType, id: number, input: NoteCreateInput) {
   await assertLiveEntry(access, type, id)
-  const [inserted] = await useDb().insert(tables.entryNotes).values({
-    teamId: access.team.id, entryType: type, entryId: id, authorId: access.user.id, body: input.body, happenedOn: input.happenedOn ?? null,
-  }).$returningId()
+  // Each note change writes its search change-log row in the same transaction.
+  const inserted = await useDb().transaction(async (tx) => {
+    const [row] = await tx.insert(tables.entryNotes).values({
+      teamId: access.team.id, entryType: type, entryId: id, authorId: access.user.id, body: input.body, happenedOn: input.happenedOn ?? null,
+    }).$returningId()
+    await searchTrackChange(tx, access.team.id, 'note', row!.id)
+    return row
+  })
   return await findAndPresent(access, type, id, inserted!.id)
 }
 
@@ -74,7 +80,10 @@ export async function wikiEditNote(access: TeamAccess, type: WikiEntryType, id: 
   if (Object.keys(patch).length) {
     const n = tables.entryNotes
     // Scoped to the author in the statement too, so the check above cannot be raced.
-    await useDb().update(n).set(patch).where(and(eq(n.id, noteId), eq(n.teamId, access.team.id), eq(n.authorId, access.user.id)))
+    await useDb().transaction(async (tx) => {
+      await tx.update(n).set(patch).where(and(eq(n.id, noteId), eq(n.teamId, access.team.id), eq(n.authorId, access.user.id)))
+      await searchTrackChange(tx, access.team.id, 'note', noteId)
+    })
   }
   return await findAndPresent(access, type, id, noteId)
 }
@@ -86,6 +95,9 @@ export async function wikiRemoveNote(access: TeamAccess, type: WikiEntryType, id
     throw forbidden('Only the author of a note, or an editor or owner, can remove it.')
   }
   const n = tables.entryNotes
-  await useDb().delete(n).where(and(eq(n.id, noteId), eq(n.teamId, access.team.id)))
+  await useDb().transaction(async (tx) => {
+    await tx.delete(n).where(and(eq(n.id, noteId), eq(n.teamId, access.team.id)))
+    await searchTrackChange(tx, access.team.id, 'note', noteId)
+  })
   return { id: noteId, removed: true }
 }

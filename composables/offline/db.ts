@@ -1,0 +1,91 @@
+// The phone's own database (IndexedDB through idb): the team's reference, its thumbnails and the queue of
+// changes made with no signal. Survives closing the app and restarting the phone; "Clear" on the offline
+// page empties the reference of one team (never the queue of unsent changes without asking).
+import { openDB, type DBSchema, type IDBPDatabase } from 'idb'
+import type { OfflineEntryByType, OfflineThumbs, OfflineType } from '~~/shared/offline/types'
+
+export interface OfflineTeamMeta {
+  slug: string
+  teamName: string
+  cursor: string
+  /** When the last download (full or changes) finished, ms. */
+  syncedAt: number
+  /** When the first full download finished, ms. */
+  fullAt: number
+  thumbsHash: string
+  /** Bytes of entries and thumbnails kept on the phone. */
+  dataBytes: number
+  thumbBytes: number
+  /** Bytes sent by the server for the last download (compressed). */
+  lastTransferBytes: number
+  counts: Record<OfflineType, number>
+  /** Thumbnails are kept while the total stays below this. */
+  budgetBytes: number
+  /** Thumbnails the server lists that are not on the phone (budget reached, or not fetched yet). */
+  thumbsMissing: number
+  /** The server's last list of thumbnails (sent only when it changes). */
+  thumbList: OfflineThumbs | null
+}
+
+export interface OfflineEntryRow<T extends OfflineType = OfflineType> {
+  slug: string
+  key: string
+  type: T
+  id: number
+  data: OfflineEntryByType[T]
+  bytes: number
+}
+
+export interface OfflineThumbRow { slug: string, key: string, photoId: number, blob: Blob, bytes: number }
+
+export type QueueState = 'pending' | 'sending' | 'conflict' | 'failed'
+export interface QueuedChange {
+  id?: number
+  slug: string
+  /** Who made it: only they send it (another person signed in on the same phone does not). */
+  userId: number | null
+  method: 'POST' | 'PATCH' | 'PUT' | 'DELETE'
+  url: string
+  body: unknown
+  /** What it is, in the person's words: "Note on HALLOWELL POTTERY CO". */
+  label: string
+  /** The app page the change belongs to, for "open". */
+  pagePath?: string
+  createdAt: number
+  state: QueueState
+  attempts: number
+  nextAttemptAt: number
+  lastError: string
+  /** A 409: the server's message and the version saved meanwhile, kept until the person decides. */
+  conflict?: { message: string, current: Record<string, unknown> }
+}
+
+interface OfflineSchema extends DBSchema {
+  meta: { key: string, value: OfflineTeamMeta }
+  entries: { key: [string, string], value: OfflineEntryRow, indexes: { slug: string } }
+  thumbs: { key: [string, string], value: OfflineThumbRow, indexes: { slug: string } }
+  queue: { key: number, value: QueuedChange, indexes: { slug: string } }
+}
+
+export const OFFLINE_DB_NAME = 'tallymark-offline'
+let opening: Promise<IDBPDatabase<OfflineSchema>> | null = null
+
+export function offlineDb(): Promise<IDBPDatabase<OfflineSchema>> {
+  opening ??= openDB<OfflineSchema>(OFFLINE_DB_NAME, 1, {
+    upgrade(db) {
+      db.createObjectStore('meta', { keyPath: 'slug' })
+      db.createObjectStore('entries', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
+      db.createObjectStore('thumbs', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
+      db.createObjectStore('queue', { keyPath: 'id', autoIncrement: true }).createIndex('slug', 'slug')
+    },
+    // Another tab upgrades: let it, and open again next time.
+    blocking() {
+      void opening?.then(db => db.close())
+      opening = null
+    },
+  }).catch((error: unknown) => {
+    opening = null
+    throw error
+  })
+  return opening
+}

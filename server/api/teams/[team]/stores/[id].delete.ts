@@ -1,0 +1,8 @@
+// Deletes a store.
+import { ledgerIdParams } from '../../../../../shared/schemas/ledger'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireMember(event, 'contributor')
+  const { id } = validParams(event, ledgerIdParams)
+  return await ledgerDeleteStore(access, id)
+})

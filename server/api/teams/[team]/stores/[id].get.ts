@@ -1,0 +1,8 @@
+// One store.
+import { ledgerIdParams } from '../../../../../shared/schemas/ledger'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireMember(event, 'viewer')
+  const { id } = validParams(event, ledgerIdParams)
+  return await ledgerGetStore(access, id)
+})

@@ -1,0 +1,246 @@
+// The phone with no signal, in Chromium: the app installs (manifest, icons, service worker, no installability
+// errors), keeps the team's reference, loads and searches with the network switched off, queues a note, an
+// item and an inscription that survive a reload, sends them when the signal is back (checked through the
+// API), shows the conflict when the same mark was edited on the server meanwhile, and reads a base from a
+// generated photo with no signal and finds its mark.
+import { mkdtempSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import sharp from 'sharp'
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
+import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { renderInscription } from '../support/ocr'
+
+let browser: Browser
+let owner: Person
+let slug: string
+const ids: Record<string, number> = {}
+
+async function create(path: string, body: Record<string, unknown>) {
+  const res = await owner.post(`/api/teams/${slug}/${path}`, body)
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  return res.body.id as number
+}
+
+async function signedIn(viewport = PHONE): Promise<BrowserContext> {
+  const context = await newContext(browser, viewport)
+  const cookies = owner.cookieHeader().split('; ').filter(Boolean).map((pair) => {
+    const eq = pair.indexOf('=')
+    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
+  })
+  await context.addCookies(cookies)
+  return context
+}
+
+/** Waits until the service worker is active and controls the page. */
+async function controlled(page: Page) {
+  await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined))
+  if (!await page.evaluate(() => Boolean(navigator.serviceWorker.controller))) {
+    await page.reload()
+    await hydrated(page)
+  }
+  expect(await page.evaluate(() => navigator.serviceWorker.controller?.scriptURL)).toMatch(/\/sw\.js$/)
+}
+
+beforeAll(async () => {
+  browser = await launchBrowser()
+  const registered = await newOwner(uniqueTeamName('Offline Browser'))
+  owner = registered.person
+  slug = registered.team.slug
+  const maker = await create('makers', { name: 'Quellmoor Brothers', country: 'United States' })
+  ids.quellmoor = await create('marks', { inscriptions: ['QUELLMOOR POTTERY CO', 'VARDENFIELD OHIO'], makerId: maker, country: 'United States', yearFrom: 1921, yearTo: 1948 })
+  ids.brisk = await create('marks', { inscriptions: ['BRISKWATER GLASS WORKS'], country: 'England' })
+  ids.tolland = await create('marks', { inscriptions: ['TOLLANDER WARE', 'MADE IN ENGLAND'], country: 'England' })
+  ids.hemsley = await create('marks', { inscriptions: ['HEMSLEY & DRAKE'], country: 'England' })
+  // A lookalike pair and a note, so the phone's copy carries them.
+  const patched = await owner.patch(`/api/teams/${slug}/marks/${ids.tolland}`, { revision: 1, lookalikes: [{ markId: ids.hemsley, howToTell: 'The ware name is **arched** on the real one.' }] })
+  expect(patched.status, JSON.stringify(patched.body)).toBe(200)
+  expect((await owner.post(`/api/teams/${slug}/marks/${ids.quellmoor}/notes`, { body: 'Seen with a green underglaze stamp.' })).status).toBe(201)
+  const jpeg = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#2f6a5e' } }).jpeg().toBuffer()
+  const form = new FormData()
+  form.append('file', new Blob([new Uint8Array(jpeg)], { type: 'image/jpeg' }), 'mark.jpg')
+  form.append('entityType', 'mark')
+  form.append('entityId', String(ids.quellmoor))
+  expect((await owner.request('POST', `/api/teams/${slug}/uploads`, form)).status).toBe(201)
+})
+afterAll(async () => { await browser?.close() })
+
+describe('installable app', () => {
+  it('has a manifest with its own icons, an active service worker and no installability errors', async () => {
+    // A normal (not incognito) profile: Chromium does not offer to install from an incognito window.
+    const context = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'tallymark-install-')), {
+      executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      baseURL: baseUrl, viewport: PHONE,
+    })
+    const page = context.pages()[0] ?? await context.newPage()
+    await page.goto('/')
+    await hydrated(page)
+    const href = await page.locator('link[rel="manifest"]').getAttribute('href')
+    expect(href).toBe('/manifest.webmanifest')
+    const res = await fetch(`${baseUrl}${href}`)
+    expect(res.status).toBe(200)
+    const manifest = await res.json() as { name: string, short_name: string, display: string, start_url: string, theme_color: string, background_color: string, icons: { src: string, sizes: string, purpose: string }[] }
+    expect(manifest).toMatchObject({ name: 'Tallymark', display: 'standalone', start_url: '/', theme_color: '#1f3b36', background_color: '#f6f1e7' })
+    for (const want of ['192x192 any', '512x512 any', '192x192 maskable', '512x512 maskable']) {
+      const [sizes, purpose] = want.split(' ')
+      const icon = manifest.icons.find(i => i.sizes === sizes && i.purpose === purpose)
+      expect(icon, want).toBeTruthy()
+      const png = await fetch(`${baseUrl}${icon!.src}`)
+      expect(png.headers.get('content-type')).toBe('image/png')
+      const meta = await sharp(Buffer.from(await png.arrayBuffer())).metadata()
+      expect(`${meta.width}x${meta.height}`).toBe(sizes)
+    }
+    await controlled(page)
+    const cdp = await context.newCDPSession(page)
+    const { installabilityErrors } = await cdp.send('Page.getInstallabilityErrors') as { installabilityErrors: { errorId: string }[] }
+    expect(installabilityErrors.map(e => e.errorId)).toEqual([])
+    // The app shell is precached; the service worker keeps no API answer.
+    const cached = await page.evaluate(async () => {
+      const names = await caches.keys()
+      return (await Promise.all(names.map(async n => (await (await caches.open(n)).keys()).map(r => new URL(r.url).pathname)))).flat()
+    })
+    expect(cached.some(p => p.startsWith('/_nuxt/') && p.endsWith('.js'))).toBe(true)
+    expect(cached.some(p => p.endsWith('.woff2'))).toBe(true)
+    expect(cached.filter(p => p.startsWith('/api/'))).toEqual([])
+    await context.close()
+  })
+})
+
+describe('with no signal', () => {
+  let context: BrowserContext
+  let page: Page
+  let problems: string[]
+  beforeAll(async () => {
+    context = await signedIn()
+    page = await context.newPage()
+    problems = watchPage(page)
+  })
+  afterAll(async () => { await context?.close() })
+  afterEach(async ({ task }) => {
+    if (task.result?.state === 'fail') await shot(page, `offline-failed-${task.name.slice(0, 20).replace(/\W+/g, '-')}`)
+  })
+
+  it('downloads the reference, then loads and searches from the phone with the network off', { timeout: 120_000 }, async () => {
+    await page.goto(`/t/${slug}/offline`)
+    await hydrated(page)
+    await controlled(page)
+    await page.getByRole('button', { name: 'Download for offline' }).click()
+    const counts = page.getByTestId('offline-counts')
+    await counts.waitFor()
+    await expect.poll(() => counts.innerText()).toMatch(/Marks\s+4\b/)
+    await expect.poll(() => counts.innerText()).toMatch(/Notes\s+1\b/)
+    await expect.poll(() => counts.innerText()).toMatch(/Photos\s+1\b/)
+    await expect.poll(() => page.getByTestId('offline-synced').innerText()).toMatch(/Last synced just now/)
+    // The photo reader's files are fetched through the service worker as part of the download.
+    await expect.poll(() => page.getByTestId('ocr-ready').innerText(), { timeout: 60_000 }).toMatch(/Ready/)
+
+    await context.setOffline(true)
+    await page.reload()
+    await hydrated(page)
+    const banner = page.getByTestId('offline-banner')
+    await expect.poll(() => banner.innerText()).toMatch(/No signal\..*synced just now/s)
+    await expect.poll(() => page.getByTestId('connection').innerText()).toBe('No signal')
+
+    await page.getByRole('button', { name: 'Search', exact: true }).click()
+    await page.keyboard.type('quellmor pot', { delay: 40 })
+    const option = page.getByRole('option', { name: /QUELLMOOR POTTERY CO/ })
+    await option.waitFor()
+    await page.getByText('No signal: answered from this phone\'s copy').waitFor()
+    await expect.poll(() => option.locator('mark').allTextContents()).toEqual(['QUELLMOOR', 'POTTERY'])
+    // The thumbnail comes from the phone too.
+    await expect.poll(() => option.locator('img').evaluate(img => (img as HTMLImageElement).naturalWidth)).toBeGreaterThan(0)
+    await shot(page, 'offline-phone-search')
+    await option.click()
+    await page.waitForURL(url => url.pathname === `/t/${slug}/saved/mark/${ids.quellmoor}`)
+    await hydrated(page)
+    await page.getByRole('heading', { name: 'QUELLMOOR POTTERY CO', level: 1 }).waitFor()
+    await page.locator('main').getByText('VARDENFIELD OHIO', { exact: true }).waitFor()
+    await page.locator('main').getByText('Seen with a green underglaze stamp.').waitFor()
+    await page.getByRole('link', { name: 'Quellmoor Brothers' }).waitFor()
+
+    // A lookalike warning, read from the phone.
+    await page.goto(`/t/${slug}/saved/mark/${ids.tolland}`)
+    await hydrated(page)
+    await page.getByRole('heading', { name: 'Easily confused with' }).waitFor()
+    await page.getByRole('link', { name: 'HEMSLEY & DRAKE' }).waitFor()
+  })
+
+  it('queues a note, an item and an inscription that survive a reload, and sends them when the signal is back; a conflict shows both versions', { timeout: 120_000 }, async () => {
+    await page.goto(`/t/${slug}/saved/mark/${ids.quellmoor}`)
+    await hydrated(page)
+    await page.getByLabel('Add a note').fill('Two on the top shelf, priced 3 each.')
+    await page.getByRole('button', { name: 'Add note' }).click()
+    await page.getByText(/No signal: “Note on QUELLMOOR POTTERY CO” is kept on this phone/).waitFor()
+    await page.getByLabel('Item', { exact: true }).fill('Quellmoor jug, cream')
+    await page.getByLabel('Paid').fill('3.50')
+    await page.getByRole('button', { name: 'Add to the items' }).click()
+    await page.getByText(/No signal: “Item “Quellmoor jug, cream”” is kept/).waitFor()
+    await page.getByLabel('Another inscription seen on this mark').fill('QUELLMOOR USA')
+    await page.getByRole('button', { name: 'Add inscription' }).click()
+    await page.getByText(/No signal: “Inscription “QUELLMOOR USA”/).waitFor()
+    await expect.poll(() => page.getByTestId('saved-queued').count()).toBe(3)
+    await shot(page, 'offline-phone-saved-mark')
+
+    // Closing and opening the app again with no signal: nothing is lost.
+    await page.reload()
+    await hydrated(page)
+    await expect.poll(() => page.getByTestId('saved-queued').count()).toBe(3)
+    await page.goto(`/t/${slug}/offline`)
+    await hydrated(page)
+    await expect.poll(() => page.locator('[data-testid="queued-change"][data-state="pending"]').count()).toBe(3)
+    await expect.poll(() => page.getByTestId('offline-banner').innerText()).toMatch(/3 changes will be sent when the signal is back/)
+    await shot(page, 'offline-phone-queue')
+
+    // Meanwhile someone edits the same mark on the server.
+    const current = await owner.get(`/api/teams/${slug}/marks/${ids.quellmoor}`)
+    const edited = await owner.patch(`/api/teams/${slug}/marks/${ids.quellmoor}`, { revision: current.body.revision, inscriptions: ['QUELLMOOR POTTERY CO', 'VARDENFIELD O.'] })
+    expect(edited.status, JSON.stringify(edited.body)).toBe(200)
+
+    await context.setOffline(false)
+    const notes = async () => ((await owner.get(`/api/teams/${slug}/marks/${ids.quellmoor}/notes`)).body.items as { body: string }[]).map(n => n.body)
+    await expect.poll(notes, { timeout: 30_000 }).toContain('Two on the top shelf, priced 3 each.')
+    const items = async () => ((await owner.get(`/api/teams/${slug}/items?q=${encodeURIComponent('Quellmoor jug')}`)).body.items as { title: string, markId: number, costCents: number }[])
+    await expect.poll(items, { timeout: 30_000 }).toEqual([expect.objectContaining({ title: 'Quellmoor jug, cream', markId: ids.quellmoor, costCents: 350 })])
+    // The inscription was based on the revision the phone had: refused, kept, both versions shown.
+    const conflict = page.getByTestId('offline-conflict')
+    await conflict.waitFor({ timeout: 30_000 })
+    const row = conflict.locator('[data-field="inscriptions"]')
+    await expect.poll(() => row.innerText()).toMatch(/Your version\s+QUELLMOOR POTTERY CO\s+VARDENFIELD OHIO\s+QUELLMOOR USA/)
+    await expect.poll(() => row.innerText()).toMatch(/Saved meanwhile by Owner Person\s+QUELLMOOR POTTERY CO\s+VARDENFIELD O\./)
+    await expect.poll(() => page.getByTestId('offline-banner').innerText()).toMatch(/1 change could not be saved/)
+    expect(await page.locator('[data-testid="queued-change"]').count()).toBe(1)
+    await shot(page, 'offline-phone-conflict')
+    // The server still has the other person's version.
+    expect((await owner.get(`/api/teams/${slug}/marks/${ids.quellmoor}`)).body.inscriptions).toEqual(['QUELLMOOR POTTERY CO', 'VARDENFIELD O.'])
+
+    // Keeping mine sends it over the saved version, knowingly.
+    await page.getByRole('button', { name: 'Save mine over it' }).click()
+    await expect.poll(async () => (await owner.get(`/api/teams/${slug}/marks/${ids.quellmoor}`)).body.inscriptions, { timeout: 30_000 })
+      .toEqual(['QUELLMOOR POTTERY CO', 'VARDENFIELD OHIO', 'QUELLMOOR USA'])
+    await expect.poll(() => page.locator('[data-testid="queued-change"]').count()).toBe(0)
+    expect(problems.filter(p => !/Failed to load resource|ERR_INTERNET_DISCONNECTED|net::/.test(p))).toEqual([])
+  })
+
+  it('reads a base from a photo with no signal and finds its mark', { timeout: 120_000 }, async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tallymark-ocr-'))
+    const file = join(dir, 'base.png')
+    writeFileSync(file, await renderInscription({ lines: ['BRISKWATER', 'GLASS WORKS'], font: 'DejaVu Serif', size: 40, rotation: 90, noisy: false, seed: 7 }))
+    await page.goto(`/t/${slug}/read-base`)
+    await hydrated(page)
+    await context.setOffline(true)
+    await page.getByTestId('ocr-file').setInputFiles(file)
+    await page.getByRole('button', { name: 'Read the text' }).click()
+    const text = page.getByLabel('Text on the base')
+    await expect.poll(() => text.inputValue(), { timeout: 60_000 }).toMatch(/BRISKWATER\s+GLASS WORKS/)
+    await expect.poll(async () => Number((await page.getByTestId('ocr-confidence').innerText()).replace(/\D/g, ''))).toBeGreaterThan(60)
+    await page.getByText('Read turned 270°.').waitFor()
+    const results = page.getByRole('region', { name: '3. Marks that match' })
+    await expect.poll(() => results.innerText(), { timeout: 15_000 }).toMatch(/answered from this phone's copy/)
+    await results.getByRole('link', { name: /BRISKWATER GLASS WORKS/ }).first().waitFor()
+    await shot(page, 'offline-phone-read-base')
+    await context.setOffline(false)
+  })
+})

@@ -1,5 +1,5 @@
 // Ledger arithmetic. Each worked example names its source beside the check:
-// "trade-facts §4" is /work/shared/trade-facts.md section 4; "hand computation" means the expected value
+// "trade-facts §4" is section 4 of the team's trade-facts notes; "hand computation" means the expected value
 // was worked out by hand from the formula stated in the comment.
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'

@@ -16,3 +16,11 @@ export function useMe() {
   })
   return result
 }
+
+/**
+ * Refetches the person and their teams now. refreshNuxtData first waits for the browser to be idle
+ * (onNuxtReady → requestIdleCallback), which on a busy phone can hold a sign-in for seconds.
+ */
+export async function refreshMe() {
+  await useNuxtApp().hooks.callHookParallel('app:data:refresh', ['me'])
+}

@@ -5,7 +5,7 @@ export function useSignedIn() {
   const route = useRoute()
   return async (teamSlug?: string) => {
     await refreshSession()
-    await refreshNuxtData('me')
+    await refreshMe()
     const next = typeof route.query.next === 'string' && route.query.next.startsWith('/') && !route.query.next.startsWith('//') ? route.query.next : null
     if (next) return navigateTo(next)
     const me = await apiFetch<MeResponse>('/api/me')

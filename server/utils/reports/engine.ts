@@ -117,9 +117,11 @@ export async function reportCompute(exec: ReportExec, input: ReportComputeInput)
     if (filters.from) filters.from = monthStart(filters.from)
     if (filters.to) filters.to = monthEnd(filters.to)
     const last = monthStart(minDay(filters.to ?? today, today))
-    const [row] = await exec(reportFirstMonthSql({ teamId, dimension, filters: { ...filters, from: null, to: null }, ageDay: today }))
-    const stockFrom = row?.first ? String(row.first) : null
-    let first = filters.from ?? stockFrom
+    let first = filters.from
+    if (!first) {
+      const [row] = await exec(reportFirstMonthSql({ teamId, dimension, filters, ageDay: today }))
+      first = row?.first ? String(row.first) : undefined
+    }
     if (first && monthsBetween(first, last) > REPORT_MAX_MONTHS) {
       if (filters.from) {
         throw new ReportProblem(400, `Please check the query: from: a month report covers at most ${REPORT_MAX_MONTHS} months.`, { from: [`A month report covers at most ${REPORT_MAX_MONTHS} months.`] })
@@ -127,9 +129,11 @@ export async function reportCompute(exec: ReportExec, input: ReportComputeInput)
       first = addMonths(last, 1 - REPORT_MAX_MONTHS)
       filters.from = first
     }
-    if (first && stockFrom && first <= last) range = { first, last, stockFrom }
+    if (first && first <= last) range = { first, last }
   }
-  const sqlInput: ReportSqlInput = { teamId, dimension, filters, ageDay: minDay(filters.to ?? today, today) }
+  // An end on or after today adds nothing (nothing is recorded later), and the statements are cheaper without it.
+  const sqlFilters = filters.to && filters.to >= today ? { ...filters, to: null } : filters
+  const sqlInput: ReportSqlInput = { teamId, dimension, filters: sqlFilters, ageDay: minDay(filters.to ?? today, today) }
 
   // The grouped counts carry their totals (WITH ROLLUP); the month rows carry them too (see monthTotals).
   const [grouped, stats, totalStats] = await Promise.all([
@@ -325,7 +329,7 @@ export async function buyCheckCompute(exec: ReportExec, input: BuyCheckComputeIn
     input.categoryId ? one(sql`SELECT id, name FROM categories WHERE team_id = ${teamId} AND id = ${input.categoryId}`) : undefined,
     one(sql`SELECT id, name, percent_bp, fixed_cents, payment_percent_bp, payment_fixed_cents FROM fee_profiles WHERE team_id = ${teamId} AND default_flag = 1`),
     buyCheckTargetsOf(exec, teamId),
-    one(sql`SELECT condition_scale FROM ledger_settings WHERE team_id = ${teamId}`),
+    one(sql`SELECT condition_scale, currency FROM ledger_settings WHERE team_id = ${teamId}`),
     input.markId && !input.categoryId
       ? exec(sql`SELECT c.id, c.name FROM mark_categories mc JOIN categories c ON c.team_id = mc.team_id AND c.id = mc.category_id
           WHERE mc.team_id = ${teamId} AND mc.mark_id = ${input.markId} ORDER BY c.name`)
@@ -383,12 +387,14 @@ export async function buyCheckCompute(exec: ReportExec, input: BuyCheckComputeIn
 
   const outcome = buyCheckEvaluate({
     priceCents: input.priceCents ?? null, quantity: input.quantity, comparables, shippingChargedCents, suppliesCents, profile,
-    postageCents: estimate.priceCents, targets,
+    postageCents: estimate.priceCents, targets, currency: settings?.currency ? String(settings.currency) : undefined,
   })
 
   const warnings: string[] = []
   if (basis === 'none') warnings.push(levels.length ? 'No sales of this mark, maker or category in the ledger yet: nothing to compare with.' : 'Pick a mark, maker or category to compare with.')
   else if (outcome.lowData) warnings.push(`Only ${count} comparable sale${count === 1 ? '' : 's'} (fewer than ${BUY_CHECK_MIN_COMPARABLES}): treat the expected price as a rough guide.`)
+  const levelCount = levels.find(l => l.basis === basis)?.count ?? 0
+  if (levelCount > count) warnings.push(`Prices from the latest ${count.toLocaleString('en-US')} of ${levelCount.toLocaleString('en-US')} sales.`)
   if (basis !== 'none' && levels[0] && levels[0].basis !== basis) {
     warnings.push(`Too few sales of this ${levels[0].basis} (${levels[0].count}): the price comes from the ${basis}${basis === 'category' && categories.length > 1 ? ' list' : ''}.`)
   }
@@ -407,7 +413,7 @@ export async function buyCheckCompute(exec: ReportExec, input: BuyCheckComputeIn
     const scale = parseJsonList(settings?.condition_scale) ?? [...DEFAULT_CONDITION_SCALE]
     const inGrade = spreadOf(conditionRow)
     condition = { grade: input.condition, spread: { count: inGrade.count, q1Cents: inGrade.q1Cents, medianCents: inGrade.medianCents, q3Cents: inGrade.q3Cents } }
-    const note = buyCheckConditionNote(input.condition, scale, condition.spread, comparables)
+    const note = buyCheckConditionNote(input.condition, scale, condition.spread, comparables, settings?.currency ? String(settings.currency) : undefined)
     if (note) cautions.push({ kind: 'condition', title: `Condition: ${input.condition.replace(/_/g, ' ')}`, text: note })
   }
 

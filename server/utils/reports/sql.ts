@@ -14,6 +14,8 @@ import type { ReportDimension } from '../../../shared/schemas/reports'
 
 /** Statuses that carry a sale still standing. A returned item's sale was given back. */
 const SOLD = sql.raw(`('sold','shipped')`)
+/** Statuses still for sale: they never carry a sale date (shared/ledger/item-rules.ts checkItemConsistency). */
+const OPEN = sql.raw(`('in_stock','listed')`)
 /** End states without a sale: their day is only in the status history, so they leave the stock base. */
 const GONE = sql.raw(`('donated','written_off','kept')`)
 /** Longest category chain followed, against a loop that a concurrent move could leave for a moment. */
@@ -43,11 +45,8 @@ export interface ReportSqlInput {
   ageDay: string
 }
 
-/**
- * The month report's series: first and last month shown (yyyy-mm-01), and the month of the first item acquired
- * (the running sums of the stock start there).
- */
-export interface ReportMonthRange { first: string, last: string, stockFrom: string }
+/** The month report's series: first and last month shown (yyyy-mm-01). */
+export interface ReportMonthRange { first: string, last: string }
 
 function withClause(input: ReportSqlInput, grouped: boolean): SQL {
   const { teamId, dimension, filters } = input
@@ -148,40 +147,45 @@ const inPeriod = (column: SQL, fromDay: string | null, toDay: string): SQL =>
 export function reportCountsSql(input: ReportSqlInput, grouped = true): SQL {
   if (input.dimension === 'month' && grouped) throw new Error('reportCountsSql: the month report has its own statement')
   const { fromDay, toDay } = periodBounds(input.filters)
-  const open = input.filters.to ? sql`(i.sold_on IS NULL OR i.sold_on > ${toDay})` : sql`i.sold_on IS NULL`
-  // Within the rows read (sold_on NULL or ≥ from, acquired_on ≤ to) these are the period tests.
-  const soldIn = input.filters.to ? sql`i.sold_on <= ${toDay}` : sql`i.sold_on IS NOT NULL`
+  const ends = Boolean(input.filters.to)
   const extra: SQL[] = []
   if (fromDay !== null) extra.push(sql`(i.sold_on IS NULL OR i.sold_on >= ${fromDay})`)
-  if (input.filters.to) extra.push(sql`i.acquired_on <= ${toDay}`)
-  const listedIn = fromDay === null && !input.filters.to
-    ? sql`COUNT(i.listed_on)`
-    : sql`SUM(${inPeriod(sql.raw('i.listed_on'), fromDay, toDay)})`
+  if (ends) extra.push(sql`i.acquired_on <= ${toDay}`)
+  // Within the rows read, a sale date is in the period unless it is after its end; without an end every figure
+  // below is a plain sum, and the status rules of the outer SELECT pick the rows each figure needs.
+  const soldIn = sql`i.sold_on <= ${toDay}`
+  const ifSold = (value: SQL) => ends ? sql`SUM(IF(${soldIn}, ${value}, 0))` : sql`SUM(${value})`
+  const unsoldAt = sql`(i.sold_on IS NULL OR i.sold_on > ${toDay})`
   const dimension = input.dimension as Exclude<ReportDimension, 'month'>
-  const rawKey = grouped ? rawKeyColumn(dimension) : sql.raw('0')
   const rollsUp = dimension === 'category' && (grouped || Boolean(input.filters.parentId))
   const groupKey = !grouped ? null : rollsUp ? sql.raw('COALESCE(ct.grp, 0)') : sql.raw('COALESCE(x.k, 0)')
   const join = !rollsUp ? sql`` : input.filters.parentId ? sql` JOIN cat_tree ct ON ct.id = x.k` : sql` LEFT JOIN cat_tree ct ON ct.id = x.k`
-  const inner = sql`SELECT ${rollsUp ? sql.raw('i.category_id') : rawKey} AS k, i.status AS st,
-      ${fromDay === null ? sql`COUNT(*)` : sql`SUM(i.acquired_on >= ${fromDay})`} AS bought,
-      ${listedIn} AS listed,
-      SUM(${soldIn}) AS sold,
-      SUM(IF(${soldIn}, i.sale_price_cents + COALESCE(i.shipping_charged_cents, 0), 0)) AS revenue,
-      SUM(IF(${soldIn}, i.net_profit_cents, 0)) AS net,
-      SUM(IF(${soldIn}, i.cost_cents, 0)) AS sold_cost,
-      ${fromDay === null ? sql`0` : sql`SUM(i.acquired_on < ${fromDay})`} AS on_start,
-      SUM(${open}) AS unsold,
-      SUM(IF(${open}, i.cost_cents, 0)) AS unsold_cost,
-      SUM(IF(${open}, DATEDIFF(${input.ageDay}, i.acquired_on), 0)) AS unsold_age_days
+  // Only the sums a figure needs, each once: without a start, bought is the row count; without an end, every
+  // item sold or shipped that was read sold in the period, and the unsold stock is the open items with their cost.
+  const inner = sql`SELECT ${grouped || rollsUp ? rawKeyColumn(dimension) : sql.raw('0')} AS k, i.status AS st,
+      COUNT(*) AS n,
+      ${fromDay === null ? sql`` : sql`SUM(i.acquired_on >= ${fromDay}) AS bought,`}
+      ${fromDay === null && !ends ? sql`COUNT(i.listed_on)` : sql`SUM(${inPeriod(sql.raw('i.listed_on'), fromDay, toDay)})`} AS listed,
+      ${ends ? sql`SUM(${soldIn}) AS sold_n,` : sql``}
+      ${ifSold(sql`i.sale_price_cents + COALESCE(i.shipping_charged_cents, 0)`)} AS revenue,
+      ${ifSold(sql`i.net_profit_cents`)} AS net,
+      ${ifSold(sql`i.cost_cents`)} AS cost,
+      ${ends ? sql`SUM(${unsoldAt}) AS unsold_n, SUM(IF(${unsoldAt}, i.cost_cents, 0)) AS unsold_cost,` : sql``}
+      SUM(${ends ? sql`IF(${unsoldAt}, TO_DAYS(i.acquired_on), 0)` : sql`TO_DAYS(i.acquired_on)`}) AS acquired_days
     ${fromWhere(input, false, extra)} GROUP BY k, st`
   const sold = sql`x.st IN ${SOLD}`
   const live = sql`x.st NOT IN ${GONE}`
+  // Without an end, the unsold stock is the items in stock or listed (they carry no sale date).
+  const holds = ends ? live : sql`x.st IN ${OPEN}`
+  const unsoldN = ends ? sql`x.unsold_n` : sql`x.n`
+  const bought = fromDay === null ? sql`x.n` : sql`x.bought`
   return sql`${withClause(input, rollsUp)}SELECT ${groupKey ?? sql.raw('0')} AS g,
-    SUM(x.bought) AS bought, SUM(x.listed) AS listed,
-    SUM(IF(${sold}, x.sold, 0)) AS sold, SUM(IF(${sold}, x.revenue, 0)) AS revenue, SUM(IF(${sold}, x.net, 0)) AS net,
-    SUM(IF(${sold}, x.sold_cost, 0)) AS sold_cost,
-    SUM(IF(${live}, x.on_start, 0)) AS on_start,
-    SUM(IF(${live}, x.unsold, 0)) AS unsold, SUM(IF(${live}, x.unsold_cost, 0)) AS unsold_cost, SUM(IF(${live}, x.unsold_age_days, 0)) AS unsold_age_days
+    SUM(${bought}) AS bought, SUM(x.listed) AS listed,
+    SUM(IF(${sold}, ${ends ? sql`x.sold_n` : sql`x.n`}, 0)) AS sold, SUM(IF(${sold}, x.revenue, 0)) AS revenue, SUM(IF(${sold}, x.net, 0)) AS net,
+    SUM(IF(${sold}, x.cost, 0)) AS sold_cost,
+    ${fromDay === null ? sql`0` : sql`SUM(IF(${live}, x.n - x.bought, 0))`} AS on_start,
+    SUM(IF(${holds}, ${unsoldN}, 0)) AS unsold, SUM(IF(${holds}, ${ends ? sql`x.unsold_cost` : sql`x.cost`}, 0)) AS unsold_cost,
+    SUM(IF(${holds}, ${unsoldN} * TO_DAYS(${input.ageDay}) - x.acquired_days, 0)) AS unsold_age_days
     FROM (${inner}) AS x${join}${groupKey ? sql` GROUP BY ${groupKey} WITH ROLLUP HAVING bought > 0 OR listed > 0 OR sold > 0 OR on_start > 0 OR unsold > 0` : sql``}`
 }
 
@@ -227,32 +231,35 @@ export function reportSoldStatsSql(input: ReportSqlInput, grouped = true): SQL {
 
 /**
  * The month report's counts, one row per month of the series: bought, listed and sold in the month, the stock
- * on hand at its start (running sums of the stock acquired and of the stock that left, from the first item on),
+ * on hand at its start (the stock on the first day shown, plus running sums of what came and what left),
  * revenue, net, the cost of what sold, and the unsold stock at its end with the sum of its ages counted to the
  * month's last day (or to `ageDay` for the month still running). Each stream is grouped by its raw date first,
  * which the covering indexes deliver in order, then by month over those few rows.
  */
 export function reportMonthCountsSql(input: ReportSqlInput, range: ReportMonthRange): SQL {
   const live = sql`i.status NOT IN ${GONE}`
-  const where = (index: ReportIndex) => fromWhere(input, false, [], index)
+  const first = range.first
+  const stream = (index: ReportIndex, column: string) => fromWhere(input, false, [sql`${sql.raw(column)} >= ${first}`], index)
   const ym = (column: string) => sql.raw(`DATE_FORMAT(${column}, '%Y-%m')`)
   const zeros = (n: number) => sql.raw(Array.from({ length: n }, () => '0').join(', '))
   // Columns of every stream: bought, live_in, live_in_cost, live_in_days, listed, sold, revenue, net, sold_cost, gone, gone_cost, gone_days.
   const acquired = sql`SELECT ${ym('d')} AS m, SUM(n), SUM(live_n), SUM(live_cost), SUM(live_days), ${zeros(8)} FROM (
       SELECT i.acquired_on AS d, COUNT(*) AS n, SUM(${live}) AS live_n, SUM(IF(${live}, i.cost_cents, 0)) AS live_cost,
         SUM(IF(${live}, TO_DAYS(i.acquired_on), 0)) AS live_days
-      ${where('items_report_acquired_idx')} GROUP BY i.acquired_on) AS a GROUP BY m`
+      ${stream('items_report_acquired_idx', 'i.acquired_on')} GROUP BY i.acquired_on) AS a GROUP BY m`
   const listed = sql`SELECT ${ym('d')} AS m, ${zeros(4)}, SUM(n), ${zeros(7)} FROM (
-      SELECT i.listed_on AS d, COUNT(*) AS n ${where('items_report_listed_idx')} AND i.listed_on IS NOT NULL GROUP BY i.listed_on) AS l GROUP BY m`
+      SELECT i.listed_on AS d, COUNT(*) AS n ${stream('items_report_listed_idx', 'i.listed_on')} GROUP BY i.listed_on) AS l GROUP BY m`
   const soldStream = sql`SELECT ${ym('d')} AS m, ${zeros(5)}, SUM(sold_n), SUM(revenue), SUM(net), SUM(sold_cost), SUM(gone_n), SUM(gone_cost), SUM(gone_days) FROM (
       SELECT i.sold_on AS d, SUM(i.status IN ${SOLD}) AS sold_n,
         SUM(IF(i.status IN ${SOLD}, i.sale_price_cents + COALESCE(i.shipping_charged_cents, 0), 0)) AS revenue,
         SUM(IF(i.status IN ${SOLD}, i.net_profit_cents, 0)) AS net, SUM(IF(i.status IN ${SOLD}, i.cost_cents, 0)) AS sold_cost,
         SUM(${live}) AS gone_n, SUM(IF(${live}, i.cost_cents, 0)) AS gone_cost, SUM(IF(${live}, TO_DAYS(i.acquired_on), 0)) AS gone_days
-      ${where('items_report_sold_idx')} AND i.sold_on IS NOT NULL GROUP BY i.sold_on) AS s GROUP BY m`
-  const seriesFrom = range.stockFrom < range.first ? range.stockFrom : range.first
+      ${stream('items_report_sold_idx', 'i.sold_on')} GROUP BY i.sold_on) AS s GROUP BY m`
+  // The stock on hand on the first day shown: acquired before it and not gone before it.
+  const opening = sql`SELECT COUNT(*) AS stock, COALESCE(SUM(i.cost_cents), 0) AS stock_cost, COALESCE(SUM(TO_DAYS(i.acquired_on)), 0) AS stock_days
+      ${fromWhere(input, false, [sql`i.acquired_on < ${first}`, sql`(i.sold_on IS NULL OR i.sold_on >= ${first})`, live], 'items_report_sold_idx')}`
   return sql`${withClause(input, false)}${input.filters.categoryId ? sql`, ` : sql`WITH RECURSIVE `}months (m) AS (
-      SELECT CAST(${seriesFrom} AS DATE) UNION ALL SELECT m + INTERVAL 1 MONTH FROM months WHERE m < CAST(${range.last} AS DATE)
+      SELECT CAST(${first} AS DATE) UNION ALL SELECT m + INTERVAL 1 MONTH FROM months WHERE m < CAST(${range.last} AS DATE)
     ),
     ev (m, bought, live_in, live_in_cost, live_in_days, listed, sold, revenue, net, sold_cost, gone, gone_cost, gone_days) AS (
       ${acquired} UNION ALL ${listed} UNION ALL ${soldStream}
@@ -260,6 +267,7 @@ export function reportMonthCountsSql(input: ReportSqlInput, range: ReportMonthRa
     per AS (SELECT m, SUM(bought) AS bought, SUM(live_in - gone) AS stock, SUM(live_in_cost - gone_cost) AS stock_cost,
       SUM(live_in_days - gone_days) AS stock_days, SUM(listed) AS listed, SUM(sold) AS sold, SUM(revenue) AS revenue, SUM(net) AS net,
       SUM(sold_cost) AS sold_cost FROM ev GROUP BY m),
+    opening AS (${opening}),
     run AS (
       SELECT s.m, s.end_day, COALESCE(p.bought, 0) AS bought, COALESCE(p.listed, 0) AS listed, COALESCE(p.sold, 0) AS sold,
         COALESCE(p.revenue, 0) AS revenue, COALESCE(p.net, 0) AS net, COALESCE(p.sold_cost, 0) AS sold_cost,
@@ -271,11 +279,11 @@ export function reportMonthCountsSql(input: ReportSqlInput, range: ReportMonthRa
       LEFT JOIN per p ON p.m = s.m
     )
     SELECT run.m AS g, bought, listed, sold, revenue, net, sold_cost,
-      stock_cum - stock_change AS on_start,
-      stock_cum AS unsold,
-      cost_cum AS unsold_cost,
-      stock_cum * TO_DAYS(end_day) - days_cum AS unsold_age_days
-    FROM run WHERE run.m >= DATE_FORMAT(CAST(${range.first} AS DATE), '%Y-%m') ORDER BY run.m`
+      o.stock + stock_cum - stock_change AS on_start,
+      o.stock + stock_cum AS unsold,
+      o.stock_cost + cost_cum AS unsold_cost,
+      (o.stock + stock_cum) * TO_DAYS(end_day) - (o.stock_days + days_cum) AS unsold_age_days
+    FROM run CROSS JOIN opening o ORDER BY run.m`
 }
 
 /** The first month with an item acquired, for a month report without a start date. */
@@ -309,6 +317,9 @@ export function reportRecentItemsSql(input: ReportSqlInput, limit: number): SQL 
 
 export type BuyCheckLevel = 'mark' | 'maker' | 'category'
 
+/** The buy check prices from a level's latest sales only: the recent market, and a bounded amount of work. */
+export const BUY_CHECK_LATEST_SALES = 500
+
 const BOXED = sql.raw('(i.box_length_mm IS NOT NULL AND i.box_width_mm IS NOT NULL AND i.box_height_mm IS NOT NULL)')
 
 function categorySubtree(teamId: number, categoryIds: number[]): SQL {
@@ -335,9 +346,11 @@ export function buyCheckLevelCountsSql(teamId: number, markId: number | null, ma
 }
 
 /**
- * The spread of the comparables' sale price per piece (sale price ÷ quantity, rounded half-up to the cent),
+ * The spread of the sale price per piece (sale price ÷ quantity, rounded half-up to the cent) of a level's latest
+ * BUY_CHECK_LATEST_SALES sales,
  * the median days to sell, the median weight and box sides of those that have them, and the sums of shipping
- * charged and supplies, each quartile as four times its value. NULLs sort first, so the rank of a weight among
+ * charged and supplies, each quartile as four times its value. The latest sales are picked from a covering index
+ * first (ids only), so only those rows are read whole. NULLs sort first, so the rank of a weight among
  * those present is its rank less the count of NULLs. (Numbering the present ones in a window PARTITION BY
  * "weight IS NULL" instead made MariaDB 10.11 number the other windows of the same SELECT wrongly.)
  */
@@ -368,6 +381,7 @@ export function buyCheckStatsSql(teamId: number, level: BuyCheckLevel, id: numbe
           i.weight_grams AS weight,
           IF(${BOXED}, i.box_length_mm, NULL) AS bl, IF(${BOXED}, i.box_width_mm, NULL) AS bw, IF(${BOXED}, i.box_height_mm, NULL) AS bh,
           COALESCE(i.shipping_charged_cents, 0) AS shipping, COALESCE(i.supplies_cents, 0) AS supplies
-        FROM items i WHERE ${where}) AS x
+        FROM (SELECT i.id FROM items i WHERE ${where} ORDER BY i.sold_on DESC, i.id DESC LIMIT ${BUY_CHECK_LATEST_SALES}) AS latest
+        JOIN items i ON i.id = latest.id) AS x
     ) AS s`
 }

@@ -32,6 +32,10 @@ export default defineNuxtConfig({
   srcDir: '.',
   // Separate build folders let several builds run side by side (e.g. a second checkout's tests).
   buildDir: process.env.TALLYMARK_BUILD_DIR || '.nuxt',
+  routeRules: {
+    // A team import is one zip of up to 1 GB (TRANSFER_LIMITS in server/utils/transfer/format.ts), streamed to disk.
+    '/api/teams/*/imports/team': { security: { requestSizeLimiter: { maxRequestSizeInBytes: 2_000_000, maxUploadFileRequestInBytes: 1_074_000_000 } } },
+  },
   compatibilityDate: '2026-06-01',
   nitro: {
     errorHandler: '~~/server/error-handler.ts',

@@ -2,7 +2,7 @@
 import type { MaybeRefOrGetter } from 'vue'
 import type { ListingDraft } from '~~/shared/ledger/listing-draft'
 import type { EntryPhoto } from '~~/shared/photos'
-import type { LedgerItem, LedgerItemTotals, LedgerPage, LedgerStatusEvent } from '~~/shared/types/ledger'
+import type { LedgerItem, LedgerItemDetail, LedgerItemTotals, LedgerPage, LedgerStatusEvent } from '~~/shared/types/ledger'
 
 export type LedgerItemList = LedgerPage<LedgerItem> & { totals: LedgerItemTotals }
 
@@ -19,7 +19,7 @@ export function useItems(query: MaybeRefOrGetter<Record<string, string | number 
 
 export function useItem(id: MaybeRefOrGetter<number>) {
   const { slug } = useTeam()
-  return useFetch<LedgerItem>(() => `/api/teams/${slug.value}/items/${toValue(id)}`, { key: `ledger-item-${toValue(id)}` })
+  return useFetch<LedgerItemDetail>(() => `/api/teams/${slug.value}/items/${toValue(id)}`, { key: `ledger-item-${toValue(id)}` })
 }
 
 export function useItemStatusHistory(id: MaybeRefOrGetter<number>) {
@@ -45,6 +45,21 @@ export const LEDGER_ITEM_FILTER_KEYS = [
   'status', 'categoryId', 'markId', 'makerId', 'materialId', 'storeId', 'tripId', 'sourcedBy',
   'acquiredFrom', 'acquiredTo', 'soldFrom', 'soldTo', 'q',
 ] as const
+
+/**
+ * A photo for an item, sent now or kept on the phone with no signal (useOfflineQueue): for an item the
+ * server has (`itemId`), or for one still in the queue (`dependsOn`, its queued change), uploaded after it.
+ */
+export async function ledgerSendItemPhoto(slug: string, target: { itemId: number } | { dependsOn: number }, file: File, itemTitle: string) {
+  return await offlineSendOrQueue<EntryPhoto>({
+    method: 'POST', url: `/api/teams/${slug}/uploads`,
+    body: { entityType: 'item', entityId: 'itemId' in target ? target.itemId : null },
+    file, fileName: file.name || 'photo.jpg',
+    dependsOn: 'dependsOn' in target ? target.dependsOn : undefined,
+    label: `Photo of “${itemTitle}”`,
+    pagePath: 'itemId' in target ? `/t/${slug}/items/${target.itemId}` : `/t/${slug}/offline`,
+  })
+}
 
 /** Uploads a photo and attaches it to the item (the item must exist first). */
 export async function ledgerUploadItemPhoto(slug: string, itemId: number, file: File) {

@@ -4,11 +4,15 @@ import { formatCents, parseMoney } from '~~/shared/ledger/money'
 import { statusLabel, type ItemStatus } from '~~/shared/ledger/item-rules'
 import type { StoreKind } from '~~/shared/types/ledger'
 
-/** The ledger's one currency for now (the server's sale notes use it too). */
-export const LEDGER_CURRENCY = 'USD'
+/** An amount in the team's currency (useTeamCurrency), or `empty` when there is none. */
+export function ledgerMoney(cents: number | null | undefined, empty = '—', currency = ledgerCurrency()): string {
+  return cents === null || cents === undefined ? empty : formatCents(cents, currency)
+}
 
-export function ledgerMoney(cents: number | null | undefined, empty = '—'): string {
-  return cents === null || cents === undefined ? empty : formatCents(cents, LEDGER_CURRENCY)
+/** The short sign of a currency as amounts show it ("$", "€", "CHF"). */
+export function ledgerCurrencySymbol(currency = ledgerCurrency()): string {
+  const parts = new Intl.NumberFormat('en-US', { style: 'currency', currency, currencyDisplay: 'narrowSymbol' }).formatToParts(0)
+  return parts.find(p => p.type === 'currency')?.value ?? currency
 }
 
 /** Cents as the plain decimal text a money input starts from ("1234" → "12.34"), without floats. */

@@ -30,7 +30,7 @@ export function useLedgerSettings() {
   const { slug } = useTeam()
   return useFetch<LedgerSettings>(() => `/api/teams/${slug.value}/ledger-settings`, {
     key: `ledger-settings-${slug.value}`,
-    default: () => ({ mileageRateCents: 0, conditionScale: [] }),
+    default: () => ({ mileageRateCents: 0, conditionScale: [], currency: 'USD' as const }),
   })
 }
 

@@ -1,8 +1,9 @@
 import type { Role } from '~~/shared/roles'
+import type { LedgerCurrency } from '~~/shared/ledger/currencies'
 
 export interface MeResponse {
   user: { id: number, email: string, name: string }
-  teams: { slug: string, name: string, role: Role, timeZone: string }[]
+  teams: { slug: string, name: string, role: Role, timeZone: string, currency: LedgerCurrency }[]
 }
 
 /** The signed-in person and their teams; shared by every page through one keyed fetch. */

@@ -14,6 +14,11 @@ export function isAllowedHref(url: string): boolean {
   return href.startsWith('/') && !href.startsWith('//')
 }
 
+/** A photo served by the app for a team: /api/teams/<team>/photos/<id>/<size>. */
+export function isPhotoSrc(src: string): boolean {
+  return /^\/api\/teams\/[a-z0-9-]+\/photos\/\d+\/[a-z]+$/.test(src)
+}
+
 function isExternal(href: string): boolean {
   return /^https?:\/\//i.test(href)
 }
@@ -32,6 +37,13 @@ function markdown(): MarkdownIt {
     token.attrSet('rel', 'nofollow noopener noreferrer')
     if (isExternal(href)) token.attrSet('target', '_blank')
     return renderLinkOpen(tokens, idx, options, env, self)
+  }
+  // Images only from the team's own photos: any other app path would make every reader's browser request it.
+  const renderImage = md.renderer.rules.image ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens, idx, options))
+  md.renderer.rules.image = (tokens, idx, options, env, self) => {
+    const token = tokens[idx]!
+    if (isPhotoSrc(String(token.attrGet('src') ?? ''))) return renderImage(tokens, idx, options, env, self)
+    return md.utils.escapeHtml(token.content)
   }
   parser = md
   return md

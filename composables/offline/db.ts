@@ -38,7 +38,7 @@ export interface OfflineEntryRow<T extends OfflineType = OfflineType> {
 
 export interface OfflineThumbRow { slug: string, key: string, photoId: number, blob: Blob, bytes: number }
 
-export type QueueState = 'pending' | 'sending' | 'conflict' | 'failed'
+export type QueueState = 'pending' | 'sending' | 'conflict' | 'failed' | 'sent'
 export interface QueuedChange {
   id?: number
   slug: string
@@ -58,25 +58,49 @@ export interface QueuedChange {
   lastError: string
   /** A 409: the server's message and the version saved meanwhile, kept until the person decides. */
   conflict?: { message: string, current: Record<string, unknown> }
+  /**
+   * Sent as the Idempotency-Key header with a POST: the same for every attempt of the same change, so a
+   * retry after an answer that never arrived gets the first answer instead of adding the change twice.
+   */
+  idempotencyKey?: string
+  /** A photo: its bytes wait in the queueFiles store; `body` holds the form's other fields. */
+  upload?: { fileName: string }
+  /**
+   * Another queued change this one needs first (a photo of an item added with no signal): when that one
+   * is saved, the id the server gave it becomes this change's body.entityId.
+   */
+  dependsOn?: number
+  /** When it reached the server (state "sent": kept a day so the person sees it went). */
+  sentAt?: number
+  /** The page of what the server saved (the item the change created, for example). */
+  resultPath?: string
 }
+
+/** A queued photo's bytes, kept apart from the queue so listing the queue never loads them. */
+export interface QueuedFile { changeId: number, blob: Blob }
 
 interface OfflineSchema extends DBSchema {
   meta: { key: string, value: OfflineTeamMeta }
   entries: { key: [string, string], value: OfflineEntryRow, indexes: { slug: string } }
   thumbs: { key: [string, string], value: OfflineThumbRow, indexes: { slug: string } }
   queue: { key: number, value: QueuedChange, indexes: { slug: string } }
+  queueFiles: { key: number, value: QueuedFile }
 }
 
 export const OFFLINE_DB_NAME = 'tallymark-offline'
 let opening: Promise<IDBPDatabase<OfflineSchema>> | null = null
 
 export function offlineDb(): Promise<IDBPDatabase<OfflineSchema>> {
-  opening ??= openDB<OfflineSchema>(OFFLINE_DB_NAME, 1, {
-    upgrade(db) {
-      db.createObjectStore('meta', { keyPath: 'slug' })
-      db.createObjectStore('entries', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
-      db.createObjectStore('thumbs', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
-      db.createObjectStore('queue', { keyPath: 'id', autoIncrement: true }).createIndex('slug', 'slug')
+  opening ??= openDB<OfflineSchema>(OFFLINE_DB_NAME, 2, {
+    upgrade(db, oldVersion) {
+      if (oldVersion < 1) {
+        db.createObjectStore('meta', { keyPath: 'slug' })
+        db.createObjectStore('entries', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
+        db.createObjectStore('thumbs', { keyPath: ['slug', 'key'] }).createIndex('slug', 'slug')
+        db.createObjectStore('queue', { keyPath: 'id', autoIncrement: true }).createIndex('slug', 'slug')
+      }
+      // Version 2: photos taken with no signal wait here as Blobs until their upload.
+      if (oldVersion < 2) db.createObjectStore('queueFiles', { keyPath: 'changeId' })
     },
     // Another tab upgrades: let it, and open again next time.
     blocking() {

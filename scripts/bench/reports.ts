@@ -257,7 +257,12 @@ try {
   cases.push({ name: 'buy check, top category only', target: 50, path: `/buy-check?categoryId=${parent}&priceCents=400`, direct: () => buyCheckCompute(exec, { teamId: main.id, categoryId: parent, priceCents: 400, quantity: 1 }) })
 
   started = performance.now()
-  const results: { name: string, target: number, http?: { p50: number, p95: number }, direct: { p50: number, p95: number } }[] = []
+  const f = (ms: number) => ms.toFixed(1).padStart(7)
+  console.log(`\n${RUNS} runs each after ${WARMUP} warm-up runs, one request at a time; times in ms (nearest-rank percentiles).`)
+  console.log('ratio = HTTP / the same engine and SQL on a pool of its own; extra = HTTP p50 − SQL p50 (session, membership, JSON).')
+  console.log(`${'query'.padEnd(40)}${'target'.padStart(7)}${'http p50'.padStart(10)}${'http p95'.padStart(10)}${'sql p50'.padStart(9)}${'sql p95'.padStart(9)}${'ratio p50'.padStart(11)}${'ratio p95'.padStart(11)}${'extra'.padStart(8)}  ok  load`)
+  // Each row as soon as it is measured, so a long run that stops early still shows what it measured; load is the
+  // one-minute load average after the row (the machine may be shared).
   for (const c of cases) {
     const direct = await timed(c.direct)
     let http: { p50: number, p95: number } | undefined
@@ -269,18 +274,12 @@ try {
         await res.text()
       })
     }
-    results.push({ name: c.name, target: c.target, http, direct })
-  }
-  const f = (ms: number) => ms.toFixed(1).padStart(7)
-  console.log(`\n${RUNS} runs each after ${WARMUP} warm-up runs, one request at a time; times in ms (nearest-rank percentiles).`)
-  console.log('ratio = HTTP / the same engine and SQL on a pool of its own; extra = HTTP p50 − SQL p50 (session, membership, JSON).')
-  console.log(`${'query'.padEnd(40)}${'target'.padStart(7)}${'http p50'.padStart(10)}${'http p95'.padStart(10)}${'sql p50'.padStart(9)}${'sql p95'.padStart(9)}${'ratio p50'.padStart(11)}${'ratio p95'.padStart(11)}${'extra'.padStart(8)}  ok`)
-  for (const r of results) {
+    const r = { name: c.name, target: c.target, http, direct }
     const limit = r.http ?? r.direct
     const ratio50 = r.http ? r.http.p50 / r.direct.p50 : null
     const ratio95 = r.http ? r.http.p95 / r.direct.p95 : null
     const ok = limit.p95 <= r.target && (ratio95 === null || ratio95 <= 1.3)
-    console.log(`${r.name.padEnd(40)}${String(r.target).padStart(7)}${r.http ? `${f(r.http.p50)}   ${f(r.http.p95)}` : '       -         -'.padStart(20)}${f(r.direct.p50).padStart(9)}${f(r.direct.p95).padStart(9)}${ratio50 === null ? '-'.padStart(11) : `${ratio50.toFixed(2)}×`.padStart(11)}${ratio95 === null ? '-'.padStart(11) : `${ratio95.toFixed(2)}×`.padStart(11)}${r.http ? f(r.http.p50 - r.direct.p50).padStart(8) : '-'.padStart(8)}  ${ok ? 'yes' : 'NO'}`)
+    console.log(`${r.name.padEnd(40)}${String(r.target).padStart(7)}${r.http ? `${f(r.http.p50)}   ${f(r.http.p95)}` : '       -         -'.padStart(20)}${f(r.direct.p50).padStart(9)}${f(r.direct.p95).padStart(9)}${ratio50 === null ? '-'.padStart(11) : `${ratio50.toFixed(2)}×`.padStart(11)}${ratio95 === null ? '-'.padStart(11) : `${ratio95.toFixed(2)}×`.padStart(11)}${r.http ? f(r.http.p50 - r.direct.p50).padStart(8) : '-'.padStart(8)}  ${(ok ? 'yes' : 'NO').padEnd(3)} ${loadavg()[0]!.toFixed(1).padStart(5)}`)
   }
   console.log(`\nMeasured in ${((performance.now() - started) / 1000).toFixed(1)} s on ${cpus().length} cores; load average at the end ${loadavg().map(l => l.toFixed(2)).join(', ')} (other work on the machine slows every figure).`)
 }

@@ -7,7 +7,9 @@ export interface AppServer { url: string, process: ChildProcess, stop: () => Pro
 export async function startAppServer(options: { port: number, env: Record<string, string | undefined>, inheritOutput?: boolean }): Promise<AppServer> {
   const entry = `${process.env.TALLYMARK_OUTPUT_DIR || '.output'}/server/index.mjs`
   if (!existsSync(entry)) throw new Error(`No build found at ${entry}: run nuxt build first.`)
-  const child = spawn(process.execPath, [entry], {
+  // TALLYMARK_SERVER_NODE_ARGS: flags for the app's node, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof" to profile a benchmark.
+  const nodeArgs = (process.env.TALLYMARK_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean)
+  const child = spawn(process.execPath, [...nodeArgs, entry], {
     env: { ...process.env, ...options.env, HOST: '127.0.0.1', PORT: String(options.port), NITRO_HOST: '127.0.0.1', NITRO_PORT: String(options.port) },
     stdio: options.inheritOutput ? 'inherit' : ['ignore', 'pipe', 'pipe'],
   })

@@ -84,7 +84,9 @@ export async function changePassword(event: H3Event, userId: number, currentPass
   }
   assertPasswordAcceptable(newPassword, 'newPassword', { email: user.email })
   const passwordHash = await hashPassword(newPassword)
+  authCacheForgetUser(userId)
   await useDb().update(tables.users).set({ passwordHash, sessionVersion: user.sessionVersion + 1 }).where(eq(tables.users.id, userId))
+  authCacheForgetUser(userId)
   await recordAudit(event, 'auth.password_changed', { userId })
   // Every other session is now revoked; this one continues with the new version.
   await startSession(event, { id: userId, sessionVersion: user.sessionVersion + 1 })
@@ -117,6 +119,7 @@ export async function confirmPasswordReset(event: H3Event, token: string, passwo
   if (!row) throw httpError(400, 'This reset link is not valid any more: it was used already or is older than 1 hour. Ask for a new one.', { token: ['Invalid or expired link.'] })
   assertPasswordAcceptable(password, 'password', { email: row.email })
   const passwordHash = await hashPassword(password)
+  authCacheForgetUser(row.userId)
   await db.transaction(async (tx) => {
     // Single use even under a double click: only the request that flips used_at goes on.
     const [claimed] = await tx.update(tables.passwordResetTokens).set({ usedAt: new Date() })
@@ -126,6 +129,7 @@ export async function confirmPasswordReset(event: H3Event, token: string, passwo
       .where(eq(tables.users.id, row.userId))
     await recordAudit(event, 'auth.password_reset', { userId: row.userId }, tx)
   })
+  authCacheForgetUser(row.userId)
 }
 
 export async function signOutEverywhere(event: H3Event, userId: number) {

@@ -9,6 +9,8 @@ export interface AppConfig {
   s3: { endpoint: string, region: string, bucket: string, accessKeyId: string, secretAccessKey: string }
   sessionIdleMinutes: number
   sessionMaxDays: number
+  /** How long an instance may reuse a session check and a membership (0 = never, at most 2000 ms). */
+  sessionCacheMs: number
   production: boolean
 }
 
@@ -38,6 +40,8 @@ export function useServerConfig(): AppConfig {
     },
     sessionIdleMinutes: numberFrom(env.SESSION_IDLE_MINUTES, 60 * 24 * 3),
     sessionMaxDays: numberFrom(env.SESSION_MAX_DAYS, 30),
+    // Capped: it is the bound on how long another instance may still let a revoked session in.
+    sessionCacheMs: Math.min(2000, Math.max(0, Math.floor(Number(env.SESSION_CACHE_MS ?? 1000)) || 0)),
     production: env.NODE_ENV === 'production' && (env.PUBLIC_URL ?? '').startsWith('https://'),
   }
   return cached

@@ -3,13 +3,14 @@ import { and, asc, eq, sql } from 'drizzle-orm'
 import type { Role } from '../../shared/roles'
 
 export async function listMembers(teamId: number) {
-  return await useDb().select({
+  const rows = await useDb().select({
     userId: tables.users.id, name: tables.users.name, email: tables.users.email, role: tables.memberships.role,
     joinedAt: tables.memberships.createdAt, locked: sql<number>`${tables.users.lockedAt} is not null`,
   }).from(tables.memberships)
     .innerJoin(tables.users, eq(tables.users.id, tables.memberships.userId))
     .where(eq(tables.memberships.teamId, teamId))
     .orderBy(asc(tables.users.name))
+  return rows.map(r => ({ ...r, locked: Boolean(Number(r.locked)) }))
 }
 
 async function ownerCount(tx: DbOrTx, teamId: number): Promise<number> {
@@ -30,6 +31,8 @@ export async function changeMemberRole(event: H3Event, access: TeamAccess, userI
     await revokeSessions(userId, tx)
     await recordAudit(event, 'member.role_changed', { teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId, detail: { from: member.role, to: role } }, tx)
   })
+  // Again now that it is committed (revokeSessions forgot the user inside the transaction already).
+  authCacheForgetUser(userId)
 }
 
 /** Removes a member (owners), or lets a member leave (userId is the caller). */
@@ -48,10 +51,35 @@ export async function removeMember(event: H3Event, access: TeamAccess, userId: n
     if (!leaving) await revokeSessions(userId, tx)
     await recordAudit(event, leaving ? 'member.left' : 'member.removed', { teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId }, tx)
   })
+  // Someone who leaves keeps their sessions: only their remembered membership has to go.
+  authCacheForgetUser(userId)
 }
 
 export async function endMemberSessions(event: H3Event, access: TeamAccess, userId: number) {
   if (!(await findMembership(access.team.id, userId))) throw notFound('No such member in this team.')
   await revokeSessions(userId)
   await recordAudit(event, 'member.sessions_ended', { teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId })
+}
+
+/**
+ * An owner lifts the lock that consecutive failed sign-ins put on a member's account (accounts.ts), so the
+ * member signs in again with their own password. Only members of the owner's team; nothing else changes.
+ */
+export async function unlockMember(event: H3Event, access: TeamAccess, userId: number) {
+  if (!(await findMembership(access.team.id, userId))) throw notFound('No such member in this team.')
+  const u = tables.users
+  const [user] = await useDb().select({ email: u.email, lockedAt: u.lockedAt, failedLogins: u.failedLogins }).from(u).where(eq(u.id, userId)).limit(1)
+  if (!user) throw notFound('No such member in this team.')
+  if (user.lockedAt || user.failedLogins) {
+    await useDb().transaction(async (tx) => {
+      await tx.update(u).set({ lockedAt: null, failedLogins: 0 }).where(eq(u.id, userId))
+      await recordAudit(event, 'member.unlocked', {
+        teamId: access.team.id, userId: access.user.id, targetType: 'user', targetId: userId,
+        detail: { wasLocked: Boolean(user.lockedAt), failedLogins: user.failedLogins },
+      }, tx)
+    })
+  }
+  // The short sign-in throttle of the account starts afresh too, so the member can sign in at once.
+  clearAttempts([`login:acct:${user.email}`])
+  return { userId, locked: false }
 }

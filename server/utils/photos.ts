@@ -14,6 +14,7 @@ import { useStorageDriver, type StorageDriver, type StoredObject } from './stora
 import { tables, useDb, type DbOrTx } from './db'
 import { forbidden, httpError, notFound, zodFieldErrors } from './http-errors'
 import type { TeamAccess } from './guard'
+import { recordTeamAudit } from './audit'
 
 export type PhotoRow = typeof tables.photos.$inferSelect
 
@@ -205,6 +206,9 @@ export async function uploadPhoto(access: TeamAccess, form: PhotoUploadForm): Pr
   if (form.entityType && form.entityId) await assertCanAttach(access, form.entityType, form.entityId)
   try {
     const photo = await storePhoto({ teamId: access.team.id, uploadedBy: access.user.id, bytes: form.file, entityType: form.entityType, entityId: form.entityId })
+    await recordTeamAudit(access, 'photo.uploaded', {
+      targetType: 'photo', targetId: photo.id, detail: { entityType: form.entityType ?? null, entityId: form.entityId ?? null, bytes: form.file.length },
+    })
     return entryPhoto(access.team.slug, photo)
   }
   catch (error) {
@@ -246,7 +250,10 @@ export async function deletePhoto(access: TeamAccess, photoId: number): Promise<
   const photo = await findTeamPhoto(access.team.id, photoId)
   if (!photo) throw notFound('No such photo in this team.')
   assertCanChangePhoto(access, photo)
-  await useDb().delete(tables.photos).where(and(eq(tables.photos.id, photo.id), eq(tables.photos.teamId, access.team.id)))
+  await useDb().transaction(async (tx) => {
+    await tx.delete(tables.photos).where(and(eq(tables.photos.id, photo.id), eq(tables.photos.teamId, access.team.id)))
+    await recordTeamAudit(access, 'photo.deleted', { targetType: 'photo', targetId: photo.id, detail: { entityType: photo.entityType, entityId: photo.entityId } }, tx)
+  })
   // The row is gone first: a failed object delete leaves an unreachable file, never a broken photo.
   await removeObjects([photo.displayKey, photo.thumbKey])
 }

@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto'
 import { and, asc, eq, like } from 'drizzle-orm'
 import type { Role } from '../../shared/roles'
+import { ledgerCurrencyOf, type LedgerCurrency } from '../../shared/ledger/currencies'
 
 export function slugify(name: string): string {
   const base = name.normalize('NFD').replace(/[\u0300-\u036F]/g, '').toLowerCase()
@@ -33,17 +34,23 @@ export async function createTeam(db: DbOrTx, input: { name: string, ownerId: num
   return { id, slug, name: input.name }
 }
 
-export async function listUserTeams(userId: number): Promise<{ slug: string, name: string, role: Role, timeZone: string }[]> {
-  return await useDb().select({ slug: tables.teams.slug, name: tables.teams.name, role: tables.memberships.role, timeZone: tables.teams.timeZone })
+/** The person's teams with their role; each with the ledger's currency, so every page formats money with it. */
+export async function listUserTeams(userId: number): Promise<{ slug: string, name: string, role: Role, timeZone: string, currency: LedgerCurrency }[]> {
+  const rows = await useDb().select({
+    slug: tables.teams.slug, name: tables.teams.name, role: tables.memberships.role, timeZone: tables.teams.timeZone, currency: tables.ledgerSettings.currency,
+  })
     .from(tables.memberships)
     .innerJoin(tables.teams, eq(tables.teams.id, tables.memberships.teamId))
+    .leftJoin(tables.ledgerSettings, eq(tables.ledgerSettings.teamId, tables.teams.id))
     .where(eq(tables.memberships.userId, userId))
     .orderBy(asc(tables.teams.name))
+  return rows.map(row => ({ ...row, currency: ledgerCurrencyOf(row.currency) }))
 }
 
 export async function updateTeam(teamId: number, patch: { name?: string, timeZone?: string }) {
   if (!patch.name && !patch.timeZone) return
   await useDb().update(tables.teams).set(patch).where(eq(tables.teams.id, teamId))
+  authCacheForgetTeam(teamId)
 }
 
 export async function findMembership(teamId: number, userId: number, db: DbOrTx = useDb()) {

@@ -53,12 +53,28 @@ export function sumCents(values: Iterable<number>): number {
   return total
 }
 
+let displayCurrency: () => string = () => 'USD'
+
+/**
+ * Where formatCents takes the currency from when none is passed: the app points it at the team on screen
+ * (composables/useLedgerFormat.ts, read per render so server renders of different teams never mix).
+ * Server code passes the team's currency explicitly.
+ */
+export function setDisplayCurrencySource(source: () => string): void {
+  displayCurrency = source
+}
+
+/** The currency amounts are shown in when the caller names none. */
+export function displayCurrencyCode(): string {
+  return displayCurrency()
+}
+
 /**
  * Display only: Intl formats, it does not compute. The amount is handed over as an exact decimal string,
  * never as cents / 100 in a float. Throws for currencies whose minor unit is not two decimals (e.g. JPY),
  * because the ledger's cents would then be misread.
  */
-export function formatCents(cents: number, currency: string, locale = 'en-US'): string {
+export function formatCents(cents: number, currency: string = displayCurrency(), locale = 'en-US'): string {
   assertCents('cents', cents, { allowNegative: true })
   const formatter = new Intl.NumberFormat(locale, { style: 'currency', currency })
   if (formatter.resolvedOptions().maximumFractionDigits !== 2) {

@@ -28,6 +28,8 @@ export interface BuyCheckInput {
   /** Null when the postage could not be estimated (heavier than the rate table). */
   postageCents: number | null
   targets: BuyCheckTargets
+  /** ISO 4217 code the reasons word amounts in (the team's); USD when left out. */
+  currency?: string
 }
 
 export interface BuyCheckOutcome {
@@ -45,7 +47,6 @@ export interface BuyCheckOutcome {
   reasons: BuyCheckReason[]
 }
 
-const money = (cents: number) => formatCents(cents, 'USD')
 const percent = (value: number) => `${Math.round(value * 10) / 10} %`
 
 /** The lot's sale: the per-piece figure times the pieces (a set of four sells for four pieces' worth). */
@@ -55,6 +56,7 @@ function lotCents(perPiece: number | null, quantity: number): number | null {
 
 export function buyCheckEvaluate(input: BuyCheckInput): BuyCheckOutcome {
   const { comparables, quantity, targets, profile } = input
+  const money = (cents: number) => formatCents(cents, input.currency ?? 'USD')
   const postage = input.postageCents ?? 0
   const shipping = input.shippingChargedCents
   const supplies = input.suppliesCents
@@ -137,8 +139,9 @@ export function buyCheckEvaluate(input: BuyCheckInput): BuyCheckOutcome {
  * What the grade means for this piece: its place on the team's scale (best first) and how the comparables in
  * that grade sold against all of them. Null when no grade was given.
  */
-export function buyCheckConditionNote(grade: string | null | undefined, scale: readonly string[], inGrade: BuyCheckSpread, all: BuyCheckSpread): string | null {
+export function buyCheckConditionNote(grade: string | null | undefined, scale: readonly string[], inGrade: BuyCheckSpread, all: BuyCheckSpread, currency = 'USD'): string | null {
   if (!grade) return null
+  const money = (cents: number) => formatCents(cents, currency)
   const label = grade.replace(/_/g, ' ')
   const parts: string[] = []
   const at = scale.indexOf(grade)

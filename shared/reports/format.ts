@@ -1,18 +1,20 @@
-// How the report screens word their figures: money through the ledger's formatCents, ratios to one decimal,
+// How the report screens word their figures: money through the ledger's formatCents (in the team's currency), ratios to one decimal,
 // and "—" where a figure does not exist (no sales, nothing available), never a made-up 0.
-import { formatCents } from '../ledger/money'
+import { displayCurrencyCode, formatCents } from '../ledger/money'
 
 export const REPORT_EMPTY = '—'
 
-export function reportMoney(cents: number | null | undefined): string {
-  return cents === null || cents === undefined ? REPORT_EMPTY : formatCents(cents, 'USD')
+/** In the team's currency (formatCents' display currency) unless one is given. */
+export function reportMoney(cents: number | null | undefined, currency?: string): string {
+  return cents === null || cents === undefined ? REPORT_EMPTY : formatCents(cents, currency)
 }
 
-/** Whole dollars for chart axes and tight cells. */
-export function reportMoneyShort(cents: number | null | undefined): string {
+/** Whole units of the currency (rounded for display only) for chart axes and tight cells. */
+export function reportMoneyShort(cents: number | null | undefined, currency?: string): string {
   if (cents === null || cents === undefined) return REPORT_EMPTY
-  const dollars = Math.round(cents / 100)
-  return `${dollars < 0 ? '−' : ''}$${Math.abs(dollars).toLocaleString('en-US')}`
+  const whole = Math.round(Math.abs(cents) / 100)
+  const text = new Intl.NumberFormat('en-US', { style: 'currency', currency: currency ?? displayCurrencyCode(), maximumFractionDigits: 0, minimumFractionDigits: 0 }).format(whole)
+  return `${cents < 0 && whole !== 0 ? '−' : ''}${text}`
 }
 
 export function reportPercent(value: number | null | undefined): string {

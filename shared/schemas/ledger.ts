@@ -3,6 +3,7 @@
 import { z } from 'zod'
 import { idParam, teamSlug } from './common'
 import { DAMAGE_FLAGS, ITEM_STATUSES, STORE_KINDS } from '../ledger/item-rules'
+import { LEDGER_CURRENCIES } from '../ledger/currencies'
 
 export { DAMAGE_FLAGS, ITEM_STATUSES, STORE_KINDS }
 
@@ -54,6 +55,7 @@ export const ledgerSettingsPatchSchema = z.object({
   conditionScale: z.array(z.string().trim().toLowerCase().min(1).max(L.conditionGrade).regex(/^[a-z0-9_]+$/, 'Condition grades are short words: letters, digits and _.'))
     .min(2, 'A condition scale needs at least two grades.').max(L.conditionScale, `At most ${L.conditionScale} grades.`)
     .refine(list => new Set(list).size === list.length, 'Each grade can appear once.'),
+  currency: z.string().trim().toUpperCase().pipe(z.enum(LEDGER_CURRENCIES, { message: `The currency is one of: ${LEDGER_CURRENCIES.join(', ')} (ISO 4217 codes of currencies with cents).` })),
 }).partial()
 
 // ---- Stores

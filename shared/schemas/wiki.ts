@@ -137,7 +137,7 @@ const materialFields = {
   damage: markdown('Damage'),
   cautions: markdown('Cautions'),
   handbookPath: z.string().trim().max(L.handbookPath, `handbookPath is at most ${L.handbookPath} characters.`)
-    .regex(/^(?:\/[\w\-/]*)?$/, 'handbookPath is an app path like /handbook/materials/glass.'),
+    .regex(/^(?:\/(?!\/)[\w\-/]*)?$/, 'handbookPath is an app path like /handbook/materials/glass.'),
   sources: textList('Sources', L.sources, L.source),
   notes: markdown('Notes'),
   tags: tagList,

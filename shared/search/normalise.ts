@@ -71,8 +71,8 @@ function spellings(word: string): string[] {
   // A written-out umlaut ("Mueller") also stands for the plain letter ("Muller").
   for (const s of [plain, german]) if (/[aou]e/.test(s)) out.add(s.replace(/([aou])e/g, '$1'))
   for (const s of [...out]) {
-    const same = SAME_WORD[s]
-    if (same) out.add(same)
+    // Own keys only: a word like "constructor" or "__proto__" must not pick up Object.prototype's members.
+    if (Object.hasOwn(SAME_WORD, s)) out.add(SAME_WORD[s]!)
   }
   return [...out]
 }

@@ -202,7 +202,8 @@ export function runSearch(
       for (const word of tokenize(fields[field] ?? '')) {
         const term = termVariants(word).find(v => planned.prefixes.some(p => v.startsWith(p)))
         if (!term) continue
-        result.match[term] = [...(result.match[term] ?? []), field]
+        // Own keys only: a term like "constructor" would otherwise read Object.prototype's member.
+        result.match[term] = [...(Object.hasOwn(result.match, term) ? result.match[term]! : []), field]
         // As if MiniSearch had matched it: one more query word, scoring like an average one at the prefix
         // weight, and the quality factor (the number of query words matched) one higher.
         const quality = Math.max(1, result.queryTerms.length)

@@ -6,7 +6,9 @@ import type {
   itemSaleSchema, itemStatusSchema, ledgerSettingsPatchSchema, storeCreateSchema, storePatchSchema, tripCreateSchema, tripPatchSchema,
 } from '../schemas/ledger'
 import type { DamageFlag, ItemStatus, StoreKind, TripFigures } from '../ledger/item-rules'
+import type { LedgerCurrency } from '../ledger/currencies'
 import type { feeProfiles, itemStatusEvents, items, sourcingTrips, stores } from '../../server/database/schema/ledger'
+import type { EntryPhoto } from '../photos'
 
 export type { DamageFlag, ItemStatus, StoreKind, TripFigures }
 
@@ -32,7 +34,8 @@ export type LedgerStatusEventRow = typeof itemStatusEvents.$inferSelect
 
 export interface LedgerPage<T> { items: T[], total: number, page: number, pageSize: number }
 
-export interface LedgerSettings { mileageRateCents: number, conditionScale: string[] }
+/** `currency`: the ISO 4217 code every amount of the team is in (shared/ledger/currencies.ts). */
+export interface LedgerSettings { mileageRateCents: number, conditionScale: string[], currency: LedgerCurrency }
 
 export interface LedgerStore {
   id: number
@@ -79,7 +82,8 @@ export interface LedgerFeeProfile {
   isDefault: boolean
 }
 
-export interface LedgerItem {
+/** The stored fields of an item with its computed figures (what every write recomputes). */
+export interface LedgerItemFields {
   id: number
   revision: number
   title: string
@@ -123,6 +127,30 @@ export interface LedgerItem {
   createdAt: string
   updatedAt: string
 }
+
+/** An entry an item links to, by name; `deleted` when it is in the team's deleted list (the link stays). */
+export interface LedgerLinkedEntry { id: number, name: string, deleted: boolean }
+
+/** The names behind an item's ids, so a page shows them without asking for each entry. */
+export interface LedgerItemLinks {
+  /** `path`: the names from the top category down to this one ("Kitchenware", "Jugs"). */
+  category: (LedgerLinkedEntry & { path: string[] }) | null
+  mark: LedgerLinkedEntry | null
+  /** The item's maker; without one, the maker of its mark (`fromMark`). */
+  maker: (LedgerLinkedEntry & { fromMark: boolean }) | null
+  material: LedgerLinkedEntry | null
+  store: { id: number, name: string } | null
+  trip: { id: number, tripDate: string, storeName: string } | null
+  feeProfile: { id: number, name: string } | null
+  sourcedBy: { id: number, name: string } | null
+  listedBy: { id: number, name: string } | null
+}
+
+/** An item as the list and the item routes send it: its fields and the names of what it links to. */
+export interface LedgerItem extends LedgerItemFields { links: LedgerItemLinks }
+
+/** One item (GET /items/:id): also its photos, in gallery order, with the URLs the photos route serves. */
+export interface LedgerItemDetail extends LedgerItem { photos: EntryPhoto[] }
 
 /** Sums over every row the filters select (not just the page), computed in SQL. */
 export interface LedgerItemTotals { items: number, costCents: number, revenueCents: number, netProfitCents: number }

@@ -1,9 +1,11 @@
 // Items over HTTP: creation in any status with consistency checks, computed figures, filters, paging,
 // SQL totals checked against sums made here, optimistic concurrency, the listing draft and deletion.
 // Arithmetic sources: trade-facts §4 (net profit, ROI, days to sell); fee figures by hand computation.
+import sharp from 'sharp'
 import { afterAll, describe, expect, it } from 'vitest'
 import { expectError } from '../support/api'
 import { closeTestDb, query } from '../support/db'
+import { fetchPhoto, photoForm } from '../support/photos'
 import { createEntry } from '../support/wiki'
 import { allItems, newFeeProfile, newItem, newLedgerTeam, newStore, newTrip } from '../support/ledger'
 
@@ -162,5 +164,64 @@ describe('ledger items', async () => {
     expect((await team.viewer.get(team.api(`/items/${own.id}`))).status).toBe(404)
     const [events] = await query<{ n: number }>('select count(*) n from item_status_events where item_id = ?', [own.id])
     expect(Number(events!.n)).toBe(0)
+  })
+
+  it('sends the names of its links and its photos in gallery order; the list sends the names its table shows', async () => {
+    const top = await createEntry(team.editor, team, 'categories', { name: 'Tableware' })
+    const boats = await createEntry(team.editor, team, 'categories', { name: 'Gravy boats', parentId: top })
+    const gone = await createEntry(team.editor, team, 'marks', { inscriptions: ['ASHBY LANE WARE'], makerId: maker })
+    const trip = await newTrip(team.contributor, team, store.id, { tripDate: '2026-03-04' })
+    const editorId = (await team.editor.get('/api/me')).body.user.id as number
+    const contributorId = (await team.contributor.get('/api/me')).body.user.id as number
+    const item = await newItem(team.contributor, team, {
+      title: 'Linked boat', categoryId: boats, markId: gone, materialId: material, tripId: trip.id, feeProfileId: profile.id,
+      status: 'listed', listedOn: '2026-03-05', askingCents: 1800, listedBy: editorId,
+    })
+    // Two photos of different sizes, uploaded in this order: the gallery keeps it.
+    const sizes: [number, number][] = [[800, 600], [300, 500]]
+    const uploaded: number[] = []
+    for (const [width, height] of sizes) {
+      const jpeg = await sharp({ create: { width, height, channels: 3, background: '#5a7d4e' } }).jpeg().toBuffer()
+      const res = await team.contributor.request('POST', team.api('/uploads'), photoForm(jpeg, { fields: { entityType: 'item', entityId: item.id } }))
+      expect(res.status, JSON.stringify(res.body)).toBe(201)
+      uploaded.push(res.body.id)
+    }
+    // The mark goes to the deleted list: the item keeps its name, marked as deleted.
+    expect((await team.editor.delete(team.api(`/marks/${gone}`))).status).toBe(200)
+
+    const res = await team.viewer.get(team.api(`/items/${item.id}`))
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expect(res.body.links).toEqual({
+      category: { id: boats, name: 'Gravy boats', path: ['Tableware', 'Gravy boats'], deleted: false },
+      mark: { id: gone, name: 'ASHBY LANE WARE', deleted: true },
+      maker: { id: maker, name: 'Fernwood Pottery', deleted: false, fromMark: true },
+      material: { id: material, name: 'Stoneware', deleted: false },
+      store: { id: store.id, name: 'Second Chapter Thrift' },
+      trip: { id: trip.id, tripDate: '2026-03-04', storeName: 'Second Chapter Thrift' },
+      feeProfile: { id: profile.id, name: 'Porchlight' },
+      sourcedBy: { id: contributorId, name: 'Contributor Person' },
+      listedBy: { id: editorId, name: 'Editor Person' },
+    })
+    const base = team.api('/photos')
+    expect(res.body.photos).toEqual([
+      { id: uploaded[0], width: 800, height: 600, thumbUrl: `${base}/${uploaded[0]}/thumb`, displayUrl: `${base}/${uploaded[0]}/display` },
+      { id: uploaded[1], width: 300, height: 500, thumbUrl: `${base}/${uploaded[1]}/thumb`, displayUrl: `${base}/${uploaded[1]}/display` },
+    ])
+    const thumb = await fetchPhoto(team.viewer, res.body.photos[1].thumbUrl)
+    expect(thumb.status).toBe(200)
+    expect(thumb.headers.get('content-type')).toBe('image/webp')
+    expect(await sharp(thumb.bytes).metadata()).toMatchObject({ width: 192, height: 320 })
+
+    // An item naming its own maker says so; one without links has none.
+    const own = await newItem(team.contributor, team, { title: 'Own maker', markId: mark, makerId: maker })
+    expect(own.links).toMatchObject({ maker: { id: maker, fromMark: false }, mark: { id: mark, name: 'FERNWOOD' }, category: null, trip: null, listedBy: null })
+    expect(own.photos).toEqual([])
+
+    // The list: the same names for every row, without photos.
+    const list = await team.viewer.get(team.api('/items?q=Linked%20boat'))
+    expect(list.status).toBe(200)
+    expect(list.body.items).toHaveLength(1)
+    expect(list.body.items[0].links).toEqual(res.body.links)
+    expect(list.body.items[0].photos).toBeUndefined()
   })
 })

@@ -49,6 +49,7 @@ describe('makers, materials and categories', async () => {
     })
     expect((await team.viewer.get(team.api('/materials?q=milk'))).body.items.map((m: { id: number }) => m.id)).toEqual([id])
     expect((await team.editor.post(team.api('/materials'), { name: 'Bad path', handbookPath: 'javascript:alert(1)' })).status).toBe(400)
+    expect((await team.editor.post(team.api('/materials'), { name: 'Off-site path', handbookPath: '//elsewhere.example/page' })).status).toBe(400)
     expect((await team.editor.post(team.api('/materials'), { name: 'Long check', checks: { weight: 'x'.repeat(1001) } })).status).toBe(400)
   })
 

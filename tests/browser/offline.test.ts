@@ -2,7 +2,10 @@
 // errors), keeps the team's reference, loads and searches with the network switched off, queues a note, an
 // item and an inscription that survive a reload, sends them when the signal is back (checked through the
 // API), shows the conflict when the same mark was edited on the server meanwhile, and reads a base from a
-// generated photo with no signal and finds its mark.
+// generated photo with no signal and finds its mark. The sales ledger with no signal: a quick-add item with
+// its photo (kept as a Blob), a sale and a note wait through a reload, and back online each reaches the
+// database exactly once, even when the first answer is lost (the retry carries the same Idempotency-Key); a
+// sale of an item someone edited meanwhile shows the choice.
 import { mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
@@ -11,6 +14,7 @@ import sharp from 'sharp'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
 import { PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
 import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { closeTestDb, query } from '../support/db'
 import { renderInscription } from '../support/ocr'
 
 let browser: Browser
@@ -65,7 +69,10 @@ beforeAll(async () => {
   form.append('entityId', String(ids.quellmoor))
   expect((await owner.request('POST', `/api/teams/${slug}/uploads`, form)).status).toBe(201)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+  await closeTestDb()
+})
 
 describe('installable app', () => {
   it('has a manifest with its own icons, an active service worker and no installability errors', async () => {
@@ -242,5 +249,142 @@ describe('with no signal', () => {
     await results.getByRole('link', { name: /BRISKWATER GLASS WORKS/ }).first().waitFor()
     await shot(page, 'offline-phone-read-base')
     await context.setOffline(false)
+  })
+})
+
+describe('the sales ledger with no signal', () => {
+  let context: BrowserContext
+  let page: Page
+  let problems: string[]
+  beforeAll(async () => {
+    context = await signedIn()
+    page = await context.newPage()
+    problems = watchPage(page)
+  })
+  afterAll(async () => { await context?.close() })
+  afterEach(async ({ task }) => {
+    if (task.result?.state === 'fail') await shot(page, `offline-ledger-failed-${task.name.slice(0, 20).replace(/\W+/g, '-')}`)
+  })
+
+  it('queues an item with its photo, a sale and a note; they survive a reload; back online each is saved once, a lost answer included, and a conflict asks', { timeout: 180_000 }, async () => {
+    const sellId = await create('items', { title: 'Celadon ewer', acquiredOn: '2026-03-01', costCents: 600 })
+    const count = async (sql: string, params: unknown[]) => Number((await query<{ n: number }>(sql, params))[0]!.n)
+    const open = async (path: string) => {
+      await page.goto(`/t/${slug}${path}`)
+      await hydrated(page)
+    }
+    // With a signal, the pages are opened once, so the phone keeps them.
+    await open('/offline')
+    await controlled(page)
+    for (const path of [`/items/${sellId}`, '/quick-add', `/marks/${ids.hemsley}`]) await open(path)
+
+    await context.setOffline(true)
+    // A sale, on the item's page.
+    await open(`/items/${sellId}`)
+    await page.getByRole('button', { name: 'Mark as sold' }).click()
+    await page.getByLabel('Sale price').fill('18.00')
+    await page.getByRole('button', { name: 'Record the sale' }).click()
+    await expect.poll(() => page.getByTestId('item-flash').innerText()).toMatch(/No signal: “Sale of “Celadon ewer”” is kept on this phone/)
+    await expect.poll(() => page.getByTestId('item-pending').innerText()).toContain('Sale of “Celadon ewer”')
+    await shot(page, 'offline-phone-sale-queued')
+
+    // An item with its photo, at quick add.
+    await open('/quick-add')
+    await page.getByLabel('Price on the tag').fill('2.75')
+    const jpeg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#6b4f8a' } }).jpeg().toBuffer()
+    await page.locator('#qa-photo').setInputFiles({ name: 'creamer.jpg', mimeType: 'image/jpeg', buffer: jpeg })
+    await page.getByLabel('What is it?').fill('Speckled creamer')
+    await page.getByRole('button', { name: 'Add item · $2.75' }).click()
+    await expect.poll(() => page.getByTestId('quick-add-flash').innerText()).toMatch(/No signal: “Speckled creamer” for \$2\.75 with its photo is kept on this phone/)
+    await shot(page, 'offline-phone-quick-add-queued')
+
+    // A note, on a mark's page.
+    await open(`/marks/${ids.hemsley}`)
+    await page.getByLabel('Add a note').fill('A boxed pair at the church sale.')
+    await page.getByRole('button', { name: 'Add note' }).click()
+    await expect.poll(() => page.getByTestId('offline-banner').innerText()).toMatch(/4 changes will be sent when the signal is back/)
+
+    // The photo waits in IndexedDB as a Blob, apart from the queue.
+    const stored = await page.evaluate(() => new Promise<{ n: number, blobs: number, bytes: number }>((resolve, reject) => {
+      const req = indexedDB.open('tallymark-offline')
+      req.onerror = () => reject(req.error)
+      req.onsuccess = () => {
+        const all = req.result.transaction('queueFiles').objectStore('queueFiles').getAll()
+        all.onsuccess = () => {
+          const rows = all.result as { blob: unknown }[]
+          resolve({ n: rows.length, blobs: rows.filter(r => r.blob instanceof Blob).length, bytes: rows.reduce((t, r) => t + (r.blob as Blob).size, 0) })
+          req.result.close()
+        }
+      }
+    }))
+    expect(stored).toEqual({ n: 1, blobs: 1, bytes: jpeg.length })
+
+    // Closing and opening the app with no signal: all four still wait.
+    await open('/offline')
+    await page.reload()
+    await hydrated(page)
+    const pending = page.locator('[data-testid="queued-change"][data-state="pending"]')
+    await expect.poll(() => pending.count()).toBe(4)
+    expect(await page.locator('[data-testid="queued-change"]').allInnerTexts()).toEqual([
+      expect.stringContaining('Sale of “Celadon ewer”'), expect.stringContaining('Item “Speckled creamer”'),
+      expect.stringContaining('Photo of “Speckled creamer”'), expect.stringContaining('Note on this mark'),
+    ])
+    await shot(page, 'offline-phone-ledger-queue')
+    await open(`/items/${sellId}`)
+    await expect.poll(() => page.getByTestId('item-pending').innerText()).toContain('Sale of “Celadon ewer”')
+    await open('/offline')
+    expect(await count('select count(*) n from items where title = ?', ['Speckled creamer'])).toBe(0)
+
+    // Meanwhile someone edits the item that was sold on the phone.
+    const current = await owner.get(`/api/teams/${slug}/items/${sellId}`)
+    expect((await owner.patch(`/api/teams/${slug}/items/${sellId}`, { revision: current.body.revision, title: 'Celadon ewer, tall' })).status).toBe(200)
+
+    // The first answer to the item is lost on the way back: the server saved it, the phone never hears.
+    let lost = 0
+    const keys: string[] = []
+    await page.route(`**/api/teams/${slug}/items`, async (route) => {
+      if (route.request().method() !== 'POST') return await route.continue()
+      keys.push(route.request().headers()['idempotency-key'] ?? '')
+      if (lost++ > 0) return await route.continue()
+      await route.fetch()
+      await route.abort('connectionreset')
+    })
+    await context.setOffline(false)
+    await expect.poll(() => lost, { timeout: 30_000 }).toBe(1)
+    await expect.poll(() => count('select count(*) n from items where title = ?', ['Speckled creamer']), { timeout: 30_000 }).toBe(1)
+    // The phone still holds it as unsent; sending now retries with the same key.
+    await expect.poll(() => page.locator('[data-testid="queued-change"]').filter({ hasText: 'Item “Speckled creamer”' }).getAttribute('data-state')).toBe('pending')
+    await page.getByRole('button', { name: 'Send now' }).click()
+    const sent = page.getByTestId('sent-change')
+    await expect.poll(() => sent.count(), { timeout: 30_000 }).toBe(3)
+    expect(keys).toHaveLength(2)
+    expect(keys[0]).toMatch(/^[0-9a-f-]{36}$/)
+    expect(keys[1]).toBe(keys[0])
+    expect(await sent.allInnerTexts()).toEqual(expect.arrayContaining([
+      expect.stringMatching(/Item “Speckled creamer”\s+Sent/), expect.stringMatching(/Photo of “Speckled creamer”\s+Sent/), expect.stringMatching(/Note on this mark\s+Sent/),
+    ]))
+    // Exactly once each in the database, the photo on the item the server made.
+    const [creamer] = await query<{ id: number, cost_cents: number }>('select id, cost_cents from items where title = ?', ['Speckled creamer'])
+    expect(Number(creamer!.cost_cents)).toBe(275)
+    expect(await count('select count(*) n from items where title = ?', ['Speckled creamer'])).toBe(1)
+    expect(await count('select count(*) n from photos where entity_type = ? and entity_id = ?', ['item', creamer!.id])).toBe(1)
+    expect(await count('select count(*) n from entry_notes where entry_type = ? and entry_id = ? and body = ?', ['mark', ids.hemsley, 'A boxed pair at the church sale.'])).toBe(1)
+    expect(await count('select count(*) n from item_status_events where item_id = ? and to_status = ?', [sellId, 'sold'])).toBe(0)
+
+    // The sale met the other person's edit: both versions, and the choice.
+    const conflict = page.getByTestId('offline-conflict')
+    await conflict.waitFor({ timeout: 30_000 })
+    await expect.poll(() => conflict.locator('[data-field="salePriceCents"]').innerText()).toMatch(/Sale price\s+Your version\s+\$18\.00\s+Saved meanwhile\s+\(empty\)/i)
+    await expect.poll(() => page.getByTestId('offline-banner').innerText()).toMatch(/1 change could not be saved/)
+    await shot(page, 'offline-phone-ledger-conflict')
+    await page.getByRole('button', { name: 'Save mine over it' }).click()
+    await expect.poll(() => sent.count(), { timeout: 30_000 }).toBe(4)
+    expect(await page.locator('[data-testid="queued-change"]').count()).toBe(0)
+    const sold = (await owner.get(`/api/teams/${slug}/items/${sellId}`)).body
+    expect(sold).toMatchObject({ status: 'sold', salePriceCents: 1800, title: 'Celadon ewer, tall' })
+    expect(await count('select count(*) n from item_status_events where item_id = ? and to_status = ?', [sellId, 'sold'])).toBe(1)
+    await shot(page, 'offline-phone-ledger-sent')
+    await page.unroute(`**/api/teams/${slug}/items`)
+    expect(problems.filter(p => !/Failed to load resource|ERR_INTERNET_DISCONNECTED|ERR_CONNECTION_RESET|net::/.test(p))).toEqual([])
   })
 })

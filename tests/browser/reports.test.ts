@@ -67,7 +67,8 @@ describe('reports page', () => {
       const context = await signedIn(viewport)
       const page = await context.newPage()
       const problems = watchPage(page)
-      await page.goto(`/t/${slug}/reports?by=mark`)
+      // All time: the fixture's dates are fixed, the default period moves with the calendar.
+      await page.goto(`/t/${slug}/reports?by=mark&period=all`)
       await hydrated(page)
       const table = page.getByRole('table', { name: /Report by mark/ })
       await expect.poll(() => table.getByRole('row', { name: /FERNWOOD OVEN PROOF/ }).count(), POLL).toBe(1)
@@ -103,10 +104,31 @@ describe('reports page', () => {
     })
   }
 
+  it('shows the last 12 months unless the address names a period, with all time one click away', async () => {
+    const context = await signedIn(DESKTOP)
+    const page = await context.newPage()
+    await page.goto(`/t/${slug}/reports?by=mark`)
+    await hydrated(page)
+    // 365 UTC days up to today, worked out here on its own.
+    const day = (back: number) => new Date(Date.now() - back * 86_400_000).toISOString().slice(0, 10)
+    const period = page.getByRole('group', { name: 'Period', exact: true })
+    expect(await period.getByRole('button', { name: 'Last 12 months', exact: true }).getAttribute('aria-pressed')).toBe('true')
+    expect(await page.getByRole('link', { name: 'Download CSV' }).getAttribute('href')).toBe(`/api/teams/${slug}/reports/mark.csv?from=${day(364)}&to=${day(0)}`)
+    await expect.poll(() => page.getByText(new RegExp(`, ${day(364)} to ${day(0)}: sell-through`)).count(), POLL).toBe(1)
+    await period.getByRole('button', { name: 'All time' }).click()
+    await expect.poll(() => new URL(page.url()).searchParams.get('period'), POLL).toBe('all')
+    await expect.poll(() => page.getByText(/, all time: sell-through/).count(), POLL).toBe(1)
+    expect(await page.getByRole('link', { name: 'Download CSV' }).getAttribute('href')).toBe(`/api/teams/${slug}/reports/mark.csv`)
+    // Back to the default: the address carries no period again.
+    await period.getByRole('button', { name: 'Last 12 months', exact: true }).click()
+    await expect.poll(() => new URL(page.url()).search, POLL).toBe('?by=mark')
+    await context.close()
+  })
+
   it('opens a category\'s subcategories from its row', async () => {
     const context = await signedIn(DESKTOP)
     const page = await context.newPage()
-    await page.goto(`/t/${slug}/reports`)
+    await page.goto(`/t/${slug}/reports?period=all`)
     await hydrated(page)
     await page.getByRole('button', { name: 'Kitchen' }).click()
     await expect.poll(() => new URL(page.url()).searchParams.get('parentId'), POLL).toBe(String(ids.kitchen))

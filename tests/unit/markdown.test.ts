@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { extractWikiLinks, isAllowedHref, renderMarkdown, wikiEntryPath } from '../../shared/markdown'
+import { XSS_CORPUS, corpusMarkdown, xssIdsIn } from '../support/xss-corpus'
 
 /** Attribute values as a browser would read them (entities decoded). */
 function urlAttributes(html: string): string[] {
@@ -145,6 +146,24 @@ describe('renderMarkdown: only http, https, mailto and app paths survive as link
   })
 })
 
+describe('renderMarkdown: the browser test\'s XSS corpus (tests/support/xss-corpus.ts)', () => {
+  for (const p of XSS_CORPUS) {
+    it(`${p.id} ${p.category}: inert, and still readable`, () => {
+      const html = renderMarkdown(p.payload)
+      expectInert(html)
+      // Only the two payloads that are valid markdown links or images keep their id in an attribute.
+      const text = html.replace(/<[^>]*>/g, '')
+      expect(xssIdsIn(text), 'the id shows as text').toEqual(p.attributeInMarkdown ? [] : [p.id])
+    })
+  }
+
+  it('renders the whole corpus as one note without any active markup', () => {
+    const html = renderMarkdown(corpusMarkdown())
+    expectInert(html)
+    expect(xssIdsIn(html.replace(/<[^>]*>/g, ''))).toEqual(XSS_CORPUS.filter(p => !p.attributeInMarkdown).map(p => p.id))
+  })
+})
+
 describe('isAllowedHref', () => {
   it('allows exactly http, https, mailto and single-slash paths', () => {
     for (const ok of ['https://a.example', 'HTTP://a.example', 'mailto:x@y.example', '/t/a/marks/1', '/handbook']) expect(isAllowedHref(ok), ok).toBe(true)
@@ -171,5 +190,17 @@ describe('extractWikiLinks', () => {
   it('ignores other teams, unknown kinds, code and non-links', () => {
     const src = '[x](/t/other/marks/3) [y](/t/fern/items/4) `[z](/t/fern/marks/5)` /t/fern/marks/6 [w](https://x.example/t/fern/marks/7)'
     expect(extractWikiLinks(src, 'fern')).toEqual([])
+  })
+})
+
+describe('renderMarkdown: images only from the team\'s photos', () => {
+  it('shows a team photo', () => {
+    expect(renderMarkdown('![base](/api/teams/hollowbrook/photos/12/display)')).toContain('<img src="/api/teams/hollowbrook/photos/12/display" alt="base">')
+  })
+
+  it.each(['/api/teams/hollowbrook/members', '/t/hollowbrook/marks/1', 'https://elsewhere.example/a.png', '//elsewhere.example/a.png'])('keeps only the words of %s', (src) => {
+    const html = renderMarkdown(`![worn base](${src})`)
+    expect(html).not.toContain('<img')
+    expect(html).toContain('worn base')
   })
 })

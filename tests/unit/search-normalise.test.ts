@@ -156,3 +156,29 @@ describe('the shared index options', () => {
     expect(summary.snippet?.segments.filter(s => s.match).map(s => s.text)).toEqual(['POTTERY', 'OHIO'])
   })
 })
+
+describe('words named like members of every JavaScript object', () => {
+  // A note quoting "{{constructor.constructor(...)()}}" once broke the whole team's index: "constructor" was
+  // looked up in a plain object of business words and found Object.prototype.constructor.
+  it('are ordinary words with string terms', () => {
+    for (const word of ['constructor', 'toString', 'valueOf', 'hasOwnProperty', 'isPrototypeOf', 'proto']) {
+      const variants = termVariants(word.toLowerCase())
+      expect(variants.length, word).toBeGreaterThan(0)
+      for (const v of variants) expect(typeof v, word).toBe('string')
+    }
+  })
+
+  it('are indexed and found, also when a half-typed word is completed to one of them', () => {
+    const many = new MiniSearch(searchIndexOptions())
+    many.addAll(Array.from({ length: 80 }, (_, i) => ({ key: `mark:${i}`, fields: { inscriptions: `CON${'X'.repeat(i % 7)}${i} WARE` } })))
+    const target = { inscriptions: 'ZANESFORD CONSTRUCTOR', body: '{{constructor.constructor(\'x\')()}} toString valueOf' }
+    many.add({ key: 'mark:target', fields: target })
+    many.add({ key: 'mark:decoy', fields: { inscriptions: 'ZANESFORD BELLWARE' } })
+    expect(runSearch(many, 'constructor')[0]?.id).toBe('mark:target')
+    expect(runSearch(many, 'tostring')[0]?.id).toBe('mark:target')
+    expect(searchQuery('zanesford con', many)?.capped).toBe(true)
+    const [first] = runSearch(many, 'zanesford con', { fieldsOf: key => key === 'mark:target' ? target : { inscriptions: 'ZANESFORD BELLWARE' } })
+    expect(first?.id).toBe('mark:target')
+    expect(first!.match.constructor).toEqual(['inscriptions'])
+  })
+})

@@ -16,6 +16,8 @@ export const ledgerSettings = mysqlTable('ledger_settings', {
   mileageRateCents: int('mileage_rate_cents').notNull().default(0),
   // Best grade first; DEFAULT_CONDITION_SCALE until the team changes it.
   conditionScale: json('condition_scale').$type<string[]>().notNull(),
+  // ISO 4217 code the team's amounts are in (shared/ledger/currencies.ts lists the ones with cents).
+  currency: char('currency', { length: 3 }).notNull().default('USD'),
   ...timestamps(),
 })
 

@@ -4,6 +4,7 @@ import { and, asc, desc, eq, getTableColumns, getTableName, inArray, isNull, sql
 import mysql from 'mysql2/promise'
 import type { MySqlColumn, MySqlTable } from 'drizzle-orm/mysql-core'
 import { DEFAULT_CONDITION_SCALE } from '../../../shared/ledger/item-rules'
+import { DEFAULT_LEDGER_CURRENCY, ledgerCurrencyOf } from '../../../shared/ledger/currencies'
 import type { LedgerSettings } from '../../../shared/types/ledger'
 
 export type LedgerFieldErrors = Record<string, string[]>
@@ -56,15 +57,15 @@ export function ledgerSqlNumber(value: unknown): number {
 export async function ledgerSettingsOf(db: DbOrTx, teamId: number): Promise<LedgerSettings> {
   const [row] = await db.select().from(tables.ledgerSettings).where(eq(tables.ledgerSettings.teamId, teamId)).limit(1)
   return row
-    ? { mileageRateCents: row.mileageRateCents, conditionScale: row.conditionScale }
-    : { mileageRateCents: 0, conditionScale: [...DEFAULT_CONDITION_SCALE] }
+    ? { mileageRateCents: row.mileageRateCents, conditionScale: row.conditionScale, currency: ledgerCurrencyOf(row.currency) }
+    : { mileageRateCents: 0, conditionScale: [...DEFAULT_CONDITION_SCALE], currency: DEFAULT_LEDGER_CURRENCY }
 }
 
 export async function ledgerUpdateSettings(access: TeamAccess, patch: Partial<LedgerSettings>): Promise<LedgerSettings> {
   const current = await ledgerSettingsOf(useDb(), access.team.id)
   const next = { ...current, ...Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined)) }
   await useDb().insert(tables.ledgerSettings).values({ teamId: access.team.id, ...next })
-    .onDuplicateKeyUpdate({ set: { mileageRateCents: next.mileageRateCents, conditionScale: next.conditionScale } })
+    .onDuplicateKeyUpdate({ set: { mileageRateCents: next.mileageRateCents, conditionScale: next.conditionScale, currency: next.currency } })
   return next
 }
 

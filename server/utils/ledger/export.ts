@@ -1,10 +1,12 @@
 // CSV export of any filtered view of the items, streamed in pages of 1,000 rows (keyset by id, so a page never
 // repeats or skips a row while the file is written). The columns are the import's field names, so an export
-// imports again as it is; names stand beside ids so the file also reads well in a spreadsheet.
+// imports again as it is; names stand beside ids so the file also reads well in a spreadsheet. Amounts are plain
+// decimals (12.50), in the currency the `currency` column names (the team's ISO 4217 code, on every row).
 import { Readable } from 'node:stream'
 import Papa from 'papaparse'
 import { and, asc, eq, gt } from 'drizzle-orm'
 import type { z } from 'zod'
+import { csvTextCell } from '../../../shared/csv-cells'
 import { centsToDecimalText } from '../../../shared/ledger/import-values'
 import { itemComputed } from '../../../shared/ledger/item-rules'
 import type { itemFilterQuery } from '../../../shared/schemas/ledger'
@@ -14,7 +16,7 @@ const PAGE = 1_000
 export const LEDGER_EXPORT_COLUMNS = [
   'id', 'externalId', 'title', 'status', 'quantity', 'condition', 'damageFlags', 'damageNotes', 'weightGrams',
   'boxLengthMm', 'boxWidthMm', 'boxHeightMm', 'categoryId', 'category', 'markId', 'mark', 'makerId', 'maker',
-  'materialId', 'material', 'tripId', 'store', 'acquiredOn', 'cost', 'listedOn', 'asking', 'channel', 'soldOn',
+  'materialId', 'material', 'tripId', 'store', 'acquiredOn', 'currency', 'cost', 'listedOn', 'asking', 'channel', 'soldOn',
   'shippedOn', 'salePrice', 'shippingCharged', 'postage', 'supplies', 'fees', 'refund', 'netProfit', 'daysToSell', 'notes',
 ] as const
 
@@ -32,12 +34,12 @@ async function names(db: DbOrTx, teamId: number) {
 }
 
 const money = (cents: number | null) => cents === null ? '' : centsToDecimalText(cents)
-const text = (value: number | string | null) => value === null ? '' : String(value)
+const text = (value: number | string | null) => value === null ? '' : csvTextCell(String(value))
 
 async function* csvChunks(access: TeamAccess, filters: z.infer<typeof itemFilterQuery>): AsyncGenerator<string> {
   const db = useDb()
   const i = tables.items
-  const lookup = await names(db, access.team.id)
+  const [lookup, { currency }] = await Promise.all([names(db, access.team.id), ledgerSettingsOf(db, access.team.id)])
   const where = itemFilterConditions(access.team.id, filters)
   let lastId = 0
   let first = true
@@ -46,17 +48,17 @@ async function* csvChunks(access: TeamAccess, filters: z.infer<typeof itemFilter
     if (!rows.length && !first) break
     const data = rows.map((row) => {
       const { netProfitCents, daysToSell } = itemComputed(itemFiguresOf(row))
-      const name = (map: Map<number, string>, id: number | null) => id === null ? '' : map.get(id) ?? ''
+      const name = (map: Map<number, string>, id: number | null) => id === null ? '' : csvTextCell(map.get(id) ?? '')
       return [
-        row.id, text(row.externalId), row.title, row.status, row.quantity, text(row.condition), row.damageFlags.join(';'), row.damageNotes,
+        row.id, text(row.externalId), csvTextCell(row.title), row.status, row.quantity, text(row.condition), row.damageFlags.join(';'), csvTextCell(row.damageNotes),
         text(row.weightGrams), text(row.boxLengthMm), text(row.boxWidthMm), text(row.boxHeightMm),
         text(row.categoryId), name(lookup.categories, row.categoryId), text(row.markId), name(lookup.marks, row.markId),
         text(row.makerId), name(lookup.makers, row.makerId), text(row.materialId), name(lookup.materials, row.materialId),
-        text(row.tripId), name(lookup.stores, row.storeId), row.acquiredOn, money(row.costCents), text(row.listedOn), money(row.askingCents),
+        text(row.tripId), name(lookup.stores, row.storeId), row.acquiredOn, currency, money(row.costCents), text(row.listedOn), money(row.askingCents),
         name(lookup.profiles, row.feeProfileId), text(row.soldOn), text(row.shippedOn), money(row.salePriceCents),
         money(row.shippingChargedCents), money(row.postageCents), money(row.suppliesCents),
         // Fees travel as charged, so the file imports into another team (with other profiles) with the same net.
-        money(row.feesCents), money(row.refundCents), money(netProfitCents), text(daysToSell), row.notes,
+        money(row.feesCents), money(row.refundCents), money(netProfitCents), text(daysToSell), csvTextCell(row.notes),
       ]
     })
     const csv = Papa.unparse({ fields: [...LEDGER_EXPORT_COLUMNS], data }, { header: first, newline: '\r\n' })

@@ -6,7 +6,9 @@
 import { createHash } from 'node:crypto'
 import Papa from 'papaparse'
 import { and, asc, desc, eq, inArray, isNull } from 'drizzle-orm'
+import { csvCellValue } from '../../../shared/csv-cells'
 import { parseMoney } from '../../../shared/ledger/money'
+import { searchTrackItemSale } from '../search/popularity'
 import { parseCsvDate, type DateOrder } from '../../../shared/ledger/import-values'
 import {
   checkItemConsistency, DAMAGE_FLAGS, ITEM_STATUSES, itemNetProfitCents, itemSaleFees, SALE_STATUSES, type DamageFlag, type ItemStatus,
@@ -164,7 +166,7 @@ export async function ledgerImportItems(access: TeamAccess, csvText: string, opt
     if (parseError) fail(null, `The row could not be read: ${parseError}`)
     const get = (field: ImportField): string => {
       const index = columnOf.get(field)
-      return index === undefined ? '' : String(cells[index] ?? '').trim()
+      return index === undefined ? '' : csvCellValue(String(cells[index] ?? '').trim())
     }
     const date = (field: ImportField): string | null => {
       const text = get(field)
@@ -393,6 +395,11 @@ export async function ledgerImportItems(access: TeamAccess, csvText: string, opt
       await tx.insert(tables.importMappings).values({
         teamId, headerKey: ledgerHeaderKey(headers), headers, mapping: report.mapping, dateOrder: options.dateOrder, updatedBy: access.user.id, lastUsedAt: new Date(),
       }).onDuplicateKeyUpdate({ set: { mapping: report.mapping, dateOrder: options.dateOrder, updatedBy: access.user.id, lastUsedAt: new Date() } })
+      // One change-log row for the whole import: the search's sales counts read the team's items again.
+      await searchTrackItemSale(tx, teamId, 0, toAdd.map(p => p.values.status))
+      await recordTeamAudit(access, 'items.imported', {
+        targetType: 'import', detail: { rows: report.rows, added: report.added, alreadyImported: report.alreadyImported, storesCreated: storesCreated.length, invalidRows: report.rows - report.validRows },
+      }, tx)
     })
   }
   catch (error) {

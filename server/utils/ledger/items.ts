@@ -11,8 +11,10 @@ import {
 } from '../../../shared/ledger/item-rules'
 import { noteCreateSchema } from '../../../shared/schemas/wiki'
 import { searchTrackChange } from '../search/changes'
+import { searchTrackItemSale } from '../search/popularity'
 import type { itemCreateSchema, itemFilterQuery, itemListQuery, itemPatchSchema, itemSaleSchema, itemStatusSchema } from '../../../shared/schemas/ledger'
-import type { LedgerItem, LedgerItemTotals, LedgerStatusEvent } from '../../../shared/types/ledger'
+import type { LedgerItem, LedgerItemDetail, LedgerItemFields, LedgerItemTotals, LedgerStatusEvent } from '../../../shared/types/ledger'
+import { listEntryPhotos } from '../photos'
 
 type ItemRow = typeof tables.items.$inferSelect
 type ItemInsert = typeof tables.items.$inferInsert
@@ -29,7 +31,7 @@ export function itemFiguresOf(row: Omit<Pick<LedgerItemDraft, keyof ItemFigures>
   }
 }
 
-export function itemPresent(row: ItemRow): LedgerItem {
+export function itemPresent(row: ItemRow): LedgerItemFields {
   const computed = itemComputed(itemFiguresOf(row))
   return {
     id: row.id, revision: row.revision, title: row.title, status: row.status,
@@ -57,8 +59,18 @@ export async function itemFindRow(db: DbOrTx, teamId: number, id: number): Promi
   return row
 }
 
-export async function itemGet(access: TeamAccess, id: number): Promise<LedgerItem> {
-  return itemPresent(await itemFindRow(useDb(), access.team.id, id))
+/** Items with the names of what they link to (one query per kind of entry for the whole list). */
+export async function itemWithLinks(db: DbOrTx, teamId: number, rows: ItemRow[]): Promise<LedgerItem[]> {
+  const links = await itemLinksOf(db, teamId, rows)
+  return rows.map(row => ({ ...itemPresent(row), links: links.get(row.id)! }))
+}
+
+/** One item: its fields, the names of its links and its photos in gallery order. */
+export async function itemGet(access: TeamAccess, id: number): Promise<LedgerItemDetail> {
+  const db = useDb()
+  const row = await itemFindRow(db, access.team.id, id)
+  const [[item], photos] = await Promise.all([itemWithLinks(db, access.team.id, [row]), listEntryPhotos(access.team, 'item', [id])])
+  return { ...item!, photos: photos.get(id) ?? [] }
 }
 
 /** WHERE conditions of the item filters: shared by the list, its totals and the CSV export. */
@@ -117,7 +129,7 @@ export async function itemList(access: TeamAccess, query: z.infer<typeof itemLis
       .orderBy(...ledgerOrderBy(query.sort ?? '-acquiredOn', itemSortColumns(), i.id))
       .limit(query.pageSize).offset((query.page - 1) * query.pageSize),
   ])
-  return { items: rows.map(itemPresent), total: totals.items, page: query.page, pageSize: query.pageSize, totals }
+  return { items: await itemWithLinks(db, access.team.id, rows), total: totals.items, page: query.page, pageSize: query.pageSize, totals }
 }
 
 /** The day an item entered a status, for the event recorded when it is created directly in that status. */
@@ -189,7 +201,7 @@ async function recordEvent(db: DbOrTx, teamId: number, itemId: number, from: Ite
   await db.insert(tables.itemStatusEvents).values({ teamId, itemId, fromStatus: from, toStatus: to, happenedOn, changedBy: userId })
 }
 
-export async function itemCreate(access: TeamAccess, input: z.infer<typeof itemCreateSchema>): Promise<LedgerItem> {
+export async function itemCreate(access: TeamAccess, input: z.infer<typeof itemCreateSchema>): Promise<LedgerItemDetail> {
   const teamId = access.team.id
   const id = await ledgerTransaction(async (tx) => {
     const draft = await itemFinishDraft(tx, teamId, {
@@ -208,6 +220,7 @@ export async function itemCreate(access: TeamAccess, input: z.infer<typeof itemC
     }, null)
     const [{ id }] = await tx.insert(tables.items).values({ ...draft, teamId, createdBy: access.user.id, updatedBy: access.user.id } satisfies ItemInsert).$returningId() as [{ id: number }]
     await recordEvent(tx, teamId, id, null, draft.status, itemStatusDay(draft), access.user.id)
+    await searchTrackItemSale(tx, teamId, id, [draft.status])
     return id
   })
   return await itemGet(access, id)
@@ -237,7 +250,7 @@ function draftOf(row: ItemRow): DraftInProgress {
   return Object.fromEntries(Object.entries(row).filter(([key]) => !BOOKKEEPING.has(key))) as DraftInProgress
 }
 
-export async function itemUpdate(access: TeamAccess, id: number, patch: z.infer<typeof itemPatchSchema>): Promise<LedgerItem> {
+export async function itemUpdate(access: TeamAccess, id: number, patch: z.infer<typeof itemPatchSchema>): Promise<LedgerItemDetail> {
   const teamId = access.team.id
   const { revision, box, damage, feesCents, feesManual, ...given } = patch
   return await withConflictAnswer(access, id, async () => {
@@ -253,6 +266,8 @@ export async function itemUpdate(access: TeamAccess, id: number, patch: z.infer<
       else if (feesManual !== undefined) draft.feesManual = feesManual
       if (given.tripId !== undefined && given.tripId !== current.tripId && given.storeId === undefined) draft.storeId = null
       await writeItem(tx, access, id, revision, await itemFinishDraft(tx, teamId, draft, current))
+      // A sold item's mark or maker may have changed: the sales counts follow.
+      await searchTrackItemSale(tx, teamId, id, [current.status])
     })
     return await itemGet(access, id)
   })
@@ -265,6 +280,7 @@ export async function itemDelete(access: TeamAccess, id: number) {
     assertCanEditOwn(access, current.createdBy)
     await tx.delete(tables.itemStatusEvents).where(and(eq(tables.itemStatusEvents.teamId, teamId), eq(tables.itemStatusEvents.itemId, id)))
     await tx.delete(tables.items).where(and(eq(tables.items.id, id), eq(tables.items.teamId, teamId)))
+    await searchTrackItemSale(tx, teamId, id, [current.status])
     return { id, deleted: true }
   })
 }
@@ -279,7 +295,7 @@ const SALE_FIELDS_CLEARED = {
   feesCents: null, feesManual: false, refundCents: null,
 } as const
 
-export async function itemChangeStatus(access: TeamAccess, id: number, input: z.infer<typeof itemStatusSchema>): Promise<LedgerItem> {
+export async function itemChangeStatus(access: TeamAccess, id: number, input: z.infer<typeof itemStatusSchema>): Promise<LedgerItemDetail> {
   if (input.to === 'sold') {
     throw httpError(400, 'Please check the status: to: record a sale with POST …/items/[id]/sale, which takes the price and fees.', { to: ['Record a sale with the sale endpoint: it takes the price and fees.'] })
   }
@@ -306,6 +322,7 @@ export async function itemChangeStatus(access: TeamAccess, id: number, input: z.
       }
       await writeItem(tx, access, id, current.revision, await itemFinishDraft(tx, teamId, draft, current))
       await recordEvent(tx, teamId, id, current.status, input.to, input.to === 'listed' ? draft.listedOn! : on, access.user.id)
+      await searchTrackItemSale(tx, teamId, id, [current.status, input.to])
     })
     return await itemGet(access, id)
   })
@@ -318,8 +335,8 @@ async function liveEntry(db: DbOrTx, teamId: number, type: 'mark' | 'category', 
 }
 
 /** The outcome in the team's words, for the timeline of the mark and category: price, days to sell, channel. */
-export function itemSaleNoteText(item: LedgerItem, channelName: string | null): string {
-  const money = (cents: number) => formatCents(cents, 'USD')
+export function itemSaleNoteText(item: LedgerItemFields, channelName: string | null, currency = 'USD'): string {
+  const money = (cents: number) => formatCents(cents, currency)
   const parts = [`Sold "${item.title}"${item.quantity > 1 ? ` (${item.quantity} pieces)` : ''} for ${money(item.salePriceCents ?? 0)}`]
   if (item.shippingChargedCents) parts.push(` plus ${money(item.shippingChargedCents)} shipping`)
   if (channelName) parts.push(` on ${channelName}`)
@@ -357,9 +374,11 @@ export async function itemRecordSale(access: TeamAccess, id: number, input: z.in
       }
       await writeItem(tx, access, id, current.revision, await itemFinishDraft(tx, teamId, draft, current))
       await recordEvent(tx, teamId, id, current.status, 'sold', soldOn, access.user.id)
+      await searchTrackItemSale(tx, teamId, id, ['sold'])
       if (!input.note) return []
       const sold = itemPresent(await itemFindRow(tx, teamId, id))
-      const body = noteCreateSchema.parse({ body: input.note.body ?? itemSaleNoteText(sold, profile?.name ?? null), happenedOn: soldOn })
+      const { currency } = await ledgerSettingsOf(tx, teamId)
+      const body = noteCreateSchema.parse({ body: input.note.body ?? itemSaleNoteText(sold, profile?.name ?? null, currency), happenedOn: soldOn })
       const targets: { entryType: 'mark' | 'category', entryId: number }[] = []
       if (input.note.onMark && current.markId !== null) targets.push({ entryType: 'mark', entryId: current.markId })
       if (input.note.onCategory && current.categoryId !== null) targets.push({ entryType: 'category', entryId: current.categoryId })

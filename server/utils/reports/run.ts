@@ -3,6 +3,7 @@
 import { and, eq } from 'drizzle-orm'
 import Papa from 'papaparse'
 import type { z } from 'zod'
+import { csvTextCell } from '../../../shared/csv-cells'
 import { centsToDecimalText } from '../../../shared/ledger/import-values'
 import type { buyCheckQuery, buyTargetsPatchSchema, outcomesQuery, reportQuery, ReportDimension, sourcingSheetQuery } from '../../../shared/schemas/reports'
 import type { BuyTargets, ReportResponse, ReportRow } from '../../../shared/reports/types'
@@ -38,7 +39,7 @@ export function reportCsv(report: ReportResponse): string {
   const money = (cents: number | null) => cents === null ? '' : centsToDecimalText(cents)
   const ratio = (value: number | null) => value === null ? '' : value.toFixed(2)
   const line = (row: Omit<ReportRow, 'deleted'>) => [
-    row.key ?? '', row.label, row.bought, row.listed, row.sold, row.onHandAtStart, row.available, ratio(row.sellThrough),
+    row.key ?? '', csvTextCell(row.label), row.bought, row.listed, row.sold, row.onHandAtStart, row.available, ratio(row.sellThrough),
     row.medianDaysToSell ?? '', money(row.revenueCents), money(row.netProfitCents), money(row.costOfSoldCents), ratio(row.roi),
     money(row.medianSaleCents), money(row.q1SaleCents), money(row.q3SaleCents), row.unsold, money(row.unsoldCostCents), row.unsoldAvgAgeDays ?? '',
   ]

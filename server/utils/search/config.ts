@@ -6,13 +6,14 @@
 // SEARCH_BUILD_WAIT_MS  how long a first search waits for its team's index before asking MariaDB       default 150
 // SEARCH_BUILD_DELAY_MS holds every index build back this long (to see the MariaDB fallback at work)  default 0
 // SEARCH_LOG_BUILDS     when set, logs each finished build (team, documents, milliseconds)              default unset
+// SEARCH_WORKER         0 keeps the indexes on the main thread (as nuxt dev always does), not in a worker  default 1
 export interface SearchConfig {
   maxTeams: number
   maxDocuments: number
   pollMs: number
   buildWaitMs: number
   buildDelayMs: number
-  /** Rows read from MariaDB per page while building. */
+  /** Rows read from MariaDB per page while building (turning a page into documents cannot yield: kept short). */
   buildPageSize: number
   /** The build yields to the event loop after this much work, so other requests keep flowing. */
   buildSliceMs: number
@@ -20,6 +21,8 @@ export interface SearchConfig {
   settleMs: number
   /** Change rows older than this are pruned. */
   keepChangesMs: number
+  /** The indexes live in a worker thread of their own (service.ts), when the build has its file. */
+  inWorker: boolean
 }
 
 function int(value: string | undefined, fallback: number, min = 0): number {
@@ -34,9 +37,10 @@ export function searchConfigFromEnv(env: Record<string, string | undefined> = pr
     pollMs: int(env.SEARCH_POLL_MS, 500, 50),
     buildWaitMs: int(env.SEARCH_BUILD_WAIT_MS, 150),
     buildDelayMs: int(env.SEARCH_BUILD_DELAY_MS, 0),
-    buildPageSize: 2000,
+    buildPageSize: 500,
     buildSliceMs: 4,
     settleMs: 10_000,
     keepChangesMs: 24 * 60 * 60 * 1000,
+    inWorker: env.SEARCH_WORKER !== '0',
   }
 }

@@ -10,18 +10,20 @@ import type { SearchParams } from '../../../shared/search/schema'
 import type { SearchHit, SearchResponse, SearchType } from '../../../shared/search/types'
 import { WIKI_ENTRY_TYPES, type WikiEntryType } from '../../../shared/schemas/wiki'
 import type { DbOrTx } from '../db'
-import { photoUrls } from '../photos'
 import { searchOnChange } from './changes'
 import type { SearchConfig } from './config'
 import { searchNoteIdsOf, searchSources } from './documents'
 import { searchDatabase } from './fallback'
-import { searchPopularityFor } from './popularity'
-import { SearchTeamIndex } from './team-index'
+import { SearchPopularityCounts, searchLoadPopularity, searchRefreshPopularity } from './popularity'
+import type { SearchTeamIndex } from './team-index'
+import { searchReadTeam } from './build'
 
 interface TeamEntry {
   teamId: number
   state: 'building' | 'ready'
   index: SearchTeamIndex | null
+  /** Sold items per mark and maker, for ties and the popular entries. */
+  popularity: SearchPopularityCounts
   /** Resolves when the build is done (or failed). */
   built: Promise<void>
   /** Change ids at or below this are in the index; above it, `applied` says which are. */
@@ -37,6 +39,15 @@ export interface SearchStats { teams: { teamId: number, state: TeamEntry['state'
 const sleep = (ms: number) => new Promise<void>(resolve => setTimeout(resolve, ms))
 const POLL_BATCH = 5000
 const PRUNE_EVERY_MS = 10 * 60 * 1000
+
+/**
+ * A photo's thumbnail address, as photoUrls (server/utils/photos.ts) gives it; written out here so that the search
+ * worker's bundle leaves out the image and storage code that module brings (tests/unit/search-thumb.test.ts
+ * keeps the two the same).
+ */
+export function searchThumbUrl(teamSlug: string, photoId: number): string {
+  return `/api/teams/${encodeURIComponent(teamSlug)}/photos/${photoId}/thumb`
+}
 
 export class SearchService {
   // Map order is recency order: a search moves its team to the end; eviction takes from the front.
@@ -64,6 +75,11 @@ export class SearchService {
     this.unsubscribe?.()
   }
 
+  /** A write was logged somewhere in this process: read the change log soon (searchOnChange does this in-process). */
+  changed(): void {
+    this.pollSoon()
+  }
+
   stats(): SearchStats {
     const teams = [...this.teams.values()].map(t => ({ teamId: t.teamId, state: t.state, documents: t.index?.size ?? 0 }))
     return { teams, documents: teams.reduce((n, t) => n + t.documents, 0) }
@@ -77,7 +93,7 @@ export class SearchService {
       this.teams.set(teamId, entry)
       return entry
     }
-    entry = { teamId, state: 'building', index: null, built: Promise.resolve(), floor: 0, applied: new Set(), dropped: false }
+    entry = { teamId, state: 'building', index: null, popularity: new SearchPopularityCounts(), built: Promise.resolve(), floor: 0, applied: new Set(), dropped: false }
     this.teams.set(teamId, entry)
     entry.built = this.build(entry)
     return entry
@@ -96,23 +112,9 @@ export class SearchService {
       if (this.config.buildDelayMs) await sleep(this.config.buildDelayMs)
       // Everything at or below the settled id was committed before the reads below: the data has it.
       entry.floor = await this.settledChangeId()
-      const index = new SearchTeamIndex()
-      let slice = performance.now()
-      for (const source of Object.values(searchSources)) {
-        for (let after = 0; ;) {
-          const page = await source.page(this.db, entry.teamId, after, this.config.buildPageSize)
-          for (const record of page) {
-            index.upsert(record)
-            if (performance.now() - slice > this.config.buildSliceMs) {
-              await yieldNow()
-              slice = performance.now()
-            }
-          }
-          if (entry.dropped) return
-          if (page.length < this.config.buildPageSize) break
-          after = page[page.length - 1]!.id
-        }
-      }
+      entry.popularity = await searchLoadPopularity(this.db, entry.teamId)
+      const index = await searchReadTeam(this.db, entry.teamId, { pageSize: this.config.buildPageSize, pause: this.slicer(), stopped: () => entry.dropped })
+      if (!index || entry.dropped) return
       entry.index = index
       entry.state = 'ready'
       this.evict(entry.teamId)
@@ -123,6 +125,15 @@ export class SearchService {
     catch (error) {
       this.log(`[search] building the index of team ${entry.teamId} failed`, error)
       if (this.teams.get(entry.teamId) === entry) this.teams.delete(entry.teamId)
+    }
+  }
+
+  /** Yields to the event loop after every buildSliceMs of building, so searches of other teams keep flowing. */
+  private slicer(): () => Promise<void> | undefined {
+    let slice = performance.now()
+    return () => {
+      if (performance.now() - slice <= this.config.buildSliceMs) return undefined
+      return yieldNow().then(() => { slice = performance.now() })
     }
   }
 
@@ -198,6 +209,8 @@ export class SearchService {
     const wanted = new Map<SearchType, Set<number>>()
     const want = (type: SearchType, id: number) => (wanted.get(type) ?? wanted.set(type, new Set()).get(type)!).add(id)
     for (const r of rows) if (r.entityType in searchSources) want(r.entityType as SearchType, r.entityId)
+    await this.applyItems(entry, rows, wanted.get('mark'))
+    if (entry.dropped) return
     for (const [type, ids] of [...wanted]) {
       const list = [...ids]
       const dependents = await searchSources[type].dependents?.(this.db, entry.teamId, list)
@@ -218,6 +231,18 @@ export class SearchService {
     }
   }
 
+  /** Sales counts: changed items are read again (id 0: the whole team); a mark's maker reaches its sold items. */
+  private async applyItems(entry: TeamEntry, rows: ChangeRow[], marks: Set<number> | undefined): Promise<void> {
+    const itemIds = new Set(rows.filter(r => r.entityType === 'item').map(r => r.entityId))
+    if (itemIds.has(0)) {
+      const counts = await searchLoadPopularity(this.db, entry.teamId)
+      if (!entry.dropped) entry.popularity = counts
+      return
+    }
+    if (marks?.size) for (const id of entry.popularity.itemsOn(marks)) itemIds.add(id)
+    if (itemIds.size) await searchRefreshPopularity(this.db, entry.teamId, entry.popularity, [...itemIds])
+  }
+
   /** The search API: the team's index when it is ready, MariaDB while it is being built. */
   async search(team: { id: number, slug: string }, params: SearchParams): Promise<SearchResponse> {
     const started = performance.now()
@@ -229,7 +254,7 @@ export class SearchService {
     let found
     let source: SearchResponse['source']
     if (entry.state === 'ready' && entry.index) {
-      const popularity = searchPopularityFor(team.id)
+      const popularity = entry.popularity.of
       found = recent ? entry.index.recent(team.slug, params, popularity) : entry.index.search(team.slug, params, popularity)
       source = 'index'
     }
@@ -239,6 +264,11 @@ export class SearchService {
     }
     await this.addThumbs(team, found.hits)
     return { hits: found.hits, total: found.total, tookMs: Math.round((performance.now() - started) * 100) / 100, source, mode: recent ? 'recent' : 'results' }
+  }
+
+  /** The same answer as JSON text, as the route sends it (the worker hands text over, not an object to copy). */
+  async searchJson(team: { id: number, slug: string }, params: SearchParams): Promise<string> {
+    return JSON.stringify(await this.search(team, params))
   }
 
   /** The first photo of each mark and maker hit, as a thumbnail URL. */
@@ -253,7 +283,7 @@ export class SearchService {
       for (const r of rows) if (r.entityId !== null && !first.has(r.entityId)) first.set(r.entityId, r.id)
       for (const hit of hits) {
         const photoId = hit.type === type ? first.get(hit.id) : undefined
-        if (photoId !== undefined) hit.thumbUrl = photoUrls(team.slug, photoId).thumbUrl
+        if (photoId !== undefined) hit.thumbUrl = searchThumbUrl(team.slug, photoId)
       }
     }
   }

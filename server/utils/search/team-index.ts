@@ -4,7 +4,7 @@ import MiniSearch, { type SearchResult } from 'minisearch'
 import { foldDiacritics } from '../../../shared/search/normalise'
 import { SEARCH_MIN_QUERY, runSearch, searchIndexOptions, type SearchDocumentInput } from '../../../shared/search/options'
 import { predicatesFromMatch, summariseMatches } from '../../../shared/search/snippet'
-import type { SearchHit, SearchType } from '../../../shared/search/types'
+import { SEARCH_TYPES, type SearchHit, type SearchType } from '../../../shared/search/types'
 import type { SearchParams } from '../../../shared/search/schema'
 import { WIKI_PATH_SEGMENTS } from '../../../shared/schemas/wiki'
 import type { SearchRecord } from './documents'
@@ -17,9 +17,21 @@ export interface SearchFound { hits: SearchHit[], total: number }
 
 const MARK_ONLY_FILTERS = ['makerId', 'materialId', 'categoryId', 'year'] as const
 
+const shownScore = (score: number) => Math.round(score * 1000) / 1000
+
+/** A record as kept here, with what every empty query and every filter would otherwise work out again per record. */
+type KeptRecord = SearchRecord & {
+  /** The key of the entry a note is on. */
+  parentKey: string | null
+  /** A note's entry is in the index (live): the note shows. Kept up to date by upsert() and remove() of the entry. */
+  parentLive: boolean
+  /** The first letter of the title, folded (a note's title is "Note on …"). */
+  initial: string
+}
+
 export class SearchTeamIndex {
   private readonly index = new MiniSearch<SearchDocumentInput>(searchIndexOptions())
-  private readonly records = new Map<string, SearchRecord>()
+  private readonly records = new Map<string, KeptRecord>()
   private readonly notesByEntry = new Map<string, Set<string>>()
 
   get size(): number {
@@ -41,19 +53,33 @@ export class SearchTeamIndex {
       this.unlinkNote(record.key)
     }
     else this.index.add(record)
+    const isNew = !this.records.has(record.key)
     const kept: SearchRecord['fields'] = {}
     for (const [field, text] of Object.entries(record.fields)) kept[field as keyof SearchRecord['fields']] = text.length > KEPT_TEXT ? text.slice(0, KEPT_TEXT) : text
-    this.records.set(record.key, { ...record, fields: kept })
-    if (record.entry) {
-      const parent = `${record.entry.type}:${record.entry.id}`
-      ;(this.notesByEntry.get(parent) ?? this.notesByEntry.set(parent, new Set()).get(parent)!).add(record.key)
-    }
+    // Every field written out (a spread plus extra fields can leave the object in V8's slow dictionary mode).
+    const r = record
+    const parentKey = r.entry ? `${r.entry.type}:${r.entry.id}` : null
+    this.records.set(record.key, {
+      key: r.key, fields: kept, type: r.type, id: r.id, title: r.title, subtitle: r.subtitle, updatedAt: r.updatedAt, country: r.country,
+      makerId: r.makerId, materialIds: r.materialIds, categoryIds: r.categoryIds, yearFrom: r.yearFrom, yearTo: r.yearTo, parentId: r.parentId,
+      entry: r.entry, parentKey, parentLive: parentKey !== null && this.records.has(parentKey), initial: r.entry ? 'n' : foldDiacritics(r.title).slice(0, 1),
+    })
+    if (parentKey) (this.notesByEntry.get(parentKey) ?? this.notesByEntry.set(parentKey, new Set()).get(parentKey)!).add(record.key)
+    if (isNew) this.markNotes(record.key, true)
   }
 
   remove(key: string): void {
     if (this.index.has(key)) this.index.discard(key)
     this.unlinkNote(key)
-    this.records.delete(key)
+    if (this.records.delete(key)) this.markNotes(key, false)
+  }
+
+  /** The notes on this entry show while it is here. */
+  private markNotes(entryKey: string, live: boolean) {
+    for (const noteKey of this.notesByEntry.get(entryKey) ?? []) {
+      const note = this.records.get(noteKey)
+      if (note) note.parentLive = live
+    }
   }
 
   private unlinkNote(key: string) {
@@ -70,31 +96,53 @@ export class SearchTeamIndex {
     if (params.q.length < SEARCH_MIN_QUERY) return { hits: [], total: 0 }
     const keep = this.filter(params)
     const results = runSearch(this.index, params.q, { filter: key => keep(this.records.get(key)!), fieldsOf: key => this.records.get(key)?.fields })
-    // Equal relevance: the entry the team sold more often first.
-    results.sort((a, b) => b.score - a.score || this.pop(b, popularity) - this.pop(a, popularity))
+    this.breakTies(results, params.limit, popularity)
     const hits = results.slice(0, params.limit).map(r => this.present(slug, this.records.get(r.id as string)!, r))
     return { hits, total: results.length }
+  }
+
+  /**
+   * Equal relevance (the same score as the hit shows it, to three decimals): the entry the team sold more often
+   * first. Results come best first, so equal scores stand together; only the runs that reach the page are sorted.
+   */
+  private breakTies(results: SearchResult[], limit: number, popularity: SearchPopularity) {
+    const pop = (result: SearchResult) => {
+      const r = this.records.get(result.id as string)
+      return r ? popularity(r.type, r.id) : 0
+    }
+    for (let start = 0; start < Math.min(limit, results.length);) {
+      const score = shownScore(results[start]!.score)
+      let end = start + 1
+      while (end < results.length && shownScore(results[end]!.score) === score) end++
+      // A stable sort: among equally popular entries the better raw score stays first.
+      if (end - start > 1) results.splice(start, end - start, ...results.slice(start, end).sort((a, b) => pop(b) - pop(a)))
+      start = end
+    }
   }
 
   /** Recent and popular entries, for an empty or one-letter query (one letter: titles starting with it first). */
   recent(slug: string, params: SearchParams, popularity: SearchPopularity): SearchFound {
     const keep = this.filter(params)
     const letter = foldDiacritics(params.q).slice(0, 1)
-    const picked: { record: SearchRecord, starts: number, pop: number }[] = []
+    type Picked = { record: SearchRecord, starts: number, pop: number }
+    const before = (a: Picked, b: Picked) => a.starts - b.starts || a.pop - b.pop || a.record.updatedAt - b.record.updatedAt
+    // The best `limit` of every entry, kept in order as they are met (a whole team's sort costs far more).
+    const top: Picked[] = []
+    let total = 0
     for (const record of this.records.values()) {
       if (!keep(record)) continue
-      picked.push({ record, starts: letter && foldDiacritics(this.titleOf(record)).startsWith(letter) ? 1 : 0, pop: popularity(record.type, record.id) })
+      total++
+      const picked = { record, starts: letter && record.initial === letter ? 1 : 0, pop: popularity(record.type, record.id) }
+      if (top.length === params.limit && before(picked, top[top.length - 1]!) <= 0) continue
+      let at = top.length
+      while (at > 0 && before(picked, top[at - 1]!) > 0) at--
+      top.splice(at, 0, picked)
+      if (top.length > params.limit) top.pop()
     }
-    picked.sort((a, b) => b.starts - a.starts || b.pop - a.pop || b.record.updatedAt - a.record.updatedAt)
-    return { hits: picked.slice(0, params.limit).map(p => this.present(slug, p.record, null)), total: picked.length }
+    return { hits: top.map(p => this.present(slug, p.record, null)), total }
   }
 
-  private pop(result: SearchResult, popularity: SearchPopularity): number {
-    const r = this.records.get(result.id as string)
-    return r ? popularity(r.type, r.id) : 0
-  }
-
-  private filter(params: SearchParams): (record: SearchRecord) => boolean {
+  private filter(params: SearchParams): (record: KeptRecord) => boolean {
     const types = new Set<SearchType>(params.types)
     // Maker, material, category and year describe marks: with any of them, only marks can match.
     if (MARK_ONLY_FILTERS.some(f => params[f] !== undefined)) for (const t of [...types]) if (t !== 'mark') types.delete(t)
@@ -102,10 +150,14 @@ export class SearchTeamIndex {
     if (params.country) for (const t of [...types]) if (t !== 'mark' && t !== 'maker') types.delete(t)
     const country = params.country ? foldDiacritics(params.country) : ''
     const categories = params.categoryId === undefined ? null : this.categoryWithDescendants(params.categoryId)
+    const everyType = types.size === SEARCH_TYPES.length
+    const narrowed = Boolean(country) || categories !== null || MARK_ONLY_FILTERS.some(f => params[f] !== undefined)
+    // Called for every entry of the team on an empty query: the common checks first, and cheap.
     return (r) => {
-      if (!types.has(r.type)) return false
+      if (!everyType && !types.has(r.type)) return false
       // A note shows while the entry it is on is live.
-      if (r.entry && !this.records.has(`${r.entry.type}:${r.entry.id}`)) return false
+      if (r.parentKey !== null && !r.parentLive) return false
+      if (!narrowed) return true
       if (country && r.country !== country) return false
       if (params.makerId !== undefined && r.makerId !== params.makerId) return false
       if (params.materialId !== undefined && !r.materialIds.includes(params.materialId)) return false
@@ -155,7 +207,7 @@ export class SearchTeamIndex {
       id: record.id,
       title: this.titleOf(record),
       subtitle,
-      score: result ? Math.round(result.score * 1000) / 1000 : 0,
+      score: result ? shownScore(result.score) : 0,
       matched,
       snippet,
       path,

@@ -315,6 +315,7 @@ export async function wikiSoftDelete(access: TeamAccess, type: WikiEntryType, id
       .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNull(t.deletedAt)))
     if (result.affectedRows !== 1) throw notFoundEntry(config)
     await searchTrackChange(tx, access.team.id, config.type, id)
+    await recordTeamAudit(access, 'entry.deleted', { targetType: config.type, targetId: id }, tx)
   })
   return { id, deleted: true }
 }
@@ -327,6 +328,7 @@ export async function wikiUndelete(access: TeamAccess, type: WikiEntryType, id: 
       .where(and(eq(t.id, id), eq(t.teamId, access.team.id), isNotNull(t.deletedAt)))
     if (result.affectedRows !== 1) throw notFound(`No ${config.label} with this id in the deleted list.`)
     await searchTrackChange(tx, access.team.id, config.type, id)
+    await recordTeamAudit(access, 'entry.restored', { targetType: config.type, targetId: id }, tx)
   })
   return { id, deleted: false }
 }
@@ -337,7 +339,7 @@ export async function wikiPurge(access: TeamAccess, type: WikiEntryType, id: num
   const teamId = access.team.id
   const t = config.table
   await wikiTransaction(async (tx) => {
-    const [row] = await tx.select({ id: t.id, deletedAt: t.deletedAt }).from(t).where(and(eq(t.id, id), eq(t.teamId, teamId))).for('update') as { id: number, deletedAt: Date | null }[]
+    const [row] = await tx.select({ id: t.id, title: config.titleColumn, deletedAt: t.deletedAt }).from(t).where(and(eq(t.id, id), eq(t.teamId, teamId))).for('update') as { id: number, title: string, deletedAt: Date | null }[]
     if (!row) throw notFoundEntry(config)
     if (!row.deletedAt) throw httpError(409, `Only ${config.label}s in the deleted list can be purged: delete it first.`)
     const blocker = await config.purgeBlocker?.(tx, teamId, id)
@@ -350,6 +352,8 @@ export async function wikiPurge(access: TeamAccess, type: WikiEntryType, id: num
     await config.deleteChildren?.(tx, teamId, id)
     await tx.delete(t).where(and(eq(t.id, id), eq(t.teamId, teamId)))
     await searchTrackChange(tx, teamId, config.type, id)
+    // The row is gone for good: the event keeps its title, so the log still says what was removed.
+    await recordTeamAudit(access, 'entry.purged', { targetType: config.type, targetId: id, detail: { title: row.title } }, tx)
   })
   // After the commit: a failed file delete leaves an orphan file, never a photo row without an entry.
   if (config.photoType) await deleteEntryPhotos(teamId, config.photoType, [id])

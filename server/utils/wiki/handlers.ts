@@ -81,9 +81,8 @@ export const defineWikiNoteCreateHandler = (type: WikiEntryType) => defineEventH
   const access = await requireMember(event, 'contributor')
   const { id } = validParams(event, wikiEntryParams)
   const input = await validBody(event, noteCreateSchema)
-  const note = await wikiAddNote(access, type, id, input)
-  setResponseStatus(event, 201)
-  return note
+  // Sent again from the phone's queue with the same Idempotency-Key, the note is not added twice.
+  return await idempotentCall(event, access, input, () => wikiAddNote(access, type, id, input), { status: 201 })
 })
 
 export const defineWikiNotePatchHandler = (type: WikiEntryType) => defineEventHandler(async (event) => {

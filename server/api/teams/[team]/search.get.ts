@@ -6,5 +6,7 @@ export default defineEventHandler(async (event) => {
   const access = await requireMember(event, 'viewer')
   const params = validQuery(event, searchQuerySchema)
   setResponseHeader(event, 'cache-control', 'no-store')
-  return await useSearchService().search(access.team, params)
+  // JSON text straight from the search worker: no second copy of the answer on this thread.
+  setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
+  return await useSearchService().searchJson(access.team, params)
 })

@@ -5,5 +5,6 @@ export default defineEventHandler(async (event) => {
   const access = await requireMember(event, 'contributor')
   const { id } = validParams(event, ledgerIdParams)
   const input = await validBody(event, itemSaleSchema)
-  return await itemRecordSale(access, id, input)
+  // The id is part of the route, so the same key on another item is a different request (422).
+  return await idempotentCall(event, access, input, () => itemRecordSale(access, id, input))
 })

@@ -6,5 +6,5 @@ export default defineEventHandler(async (event) => {
   const access = await requireMember(event, 'contributor')
   const { id } = validParams(event, ledgerIdParams)
   const input = await validBody(event, itemStatusSchema)
-  return await itemChangeStatus(access, id, input)
+  return await idempotentCall(event, access, input, () => itemChangeStatus(access, id, input))
 })

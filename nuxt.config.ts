@@ -34,6 +34,8 @@ export default defineNuxtConfig({
   buildDir: process.env.TALLYMARK_BUILD_DIR || '.nuxt',
   routeRules: {
     // A team import is one zip of up to 1 GB (TRANSFER_LIMITS in server/utils/transfer/format.ts), streamed to disk.
+    // An items CSV may be up to 64 MiB (server/api/teams/[team]/imports/items/index.post.ts), plus its multipart framing.
+    '/api/teams/*/imports/items': { security: { requestSizeLimiter: { maxRequestSizeInBytes: 2_000_000, maxUploadFileRequestInBytes: 67_200_000 } } },
     '/api/teams/*/imports/team': { security: { requestSizeLimiter: { maxRequestSizeInBytes: 2_000_000, maxUploadFileRequestInBytes: 1_074_000_000 } } },
   },
   compatibilityDate: '2026-06-01',

@@ -397,7 +397,7 @@ describe('ledger pages', () => {
     await expect.poll(() => gallery.locator('img').count(), { timeout: 15_000 }).toBe(2)
     await expect.poll(async () => (await query('SELECT id FROM photos WHERE entity_type = ? AND entity_id = ? ORDER BY position', ['item', itemId])).length).toBe(2)
     await page.getByRole('button', { name: 'Open photo 2 of 2' }).click()
-    const large = page.getByTestId('item-photo-large')
+    const large = page.getByTestId('item-photos-large')
     await expect.poll(() => large.evaluate(img => (img as HTMLImageElement).naturalWidth)).toBe(900)
     await shot(page, 'ledger-phone-item-photo-large')
     await page.getByRole('button', { name: 'Close' }).click()

@@ -42,7 +42,7 @@ export function useListingDraft(id: MaybeRefOrGetter<number>) {
 
 /** The filters of the item list that the CSV export also takes (no page, size or sort). */
 export const LEDGER_ITEM_FILTER_KEYS = [
-  'status', 'categoryId', 'markId', 'makerId', 'materialId', 'storeId', 'tripId', 'sourcedBy',
+  'status', 'categoryId', 'subcategories', 'markId', 'makerId', 'materialId', 'storeId', 'tripId', 'sourcedBy',
   'acquiredFrom', 'acquiredTo', 'soldFrom', 'soldTo', 'q',
 ] as const
 

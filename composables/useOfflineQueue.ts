@@ -26,6 +26,8 @@ export interface EnqueueInput {
   dependsOn?: number
   /** Reused when a change first tried online is queued after getting no answer. */
   idempotencyKey?: string
+  /** The version the change was made on (see QueuedChange.base). */
+  base?: Record<string, unknown>
 }
 
 export const QUEUE_RETRY_MS = 30_000
@@ -87,6 +89,8 @@ export async function offlineEnqueue(input: EnqueueInput): Promise<QueuedChange>
     idempotencyKey: input.method === 'POST' ? input.idempotencyKey ?? offlineNewKey() : undefined,
     upload: input.file ? { fileName: input.fileName || 'photo.jpg' } : undefined,
     dependsOn: input.dependsOn,
+    // A plain copy: IndexedDB stores structured clones, and a reactive proxy is not one.
+    base: input.base ? JSON.parse(JSON.stringify(input.base)) : undefined,
   }
   const db = await offlineDb()
   const tx = db.transaction(['queue', 'queueFiles'], 'readwrite')

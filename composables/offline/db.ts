@@ -56,6 +56,8 @@ export interface QueuedChange {
   attempts: number
   nextAttemptAt: number
   lastError: string
+  /** The version the change was made on (an item's fields), so a 409 can show what someone else changed meanwhile. */
+  base?: Record<string, unknown>
   /** A 409: the server's message and the version saved meanwhile, kept until the person decides. */
   conflict?: { message: string, current: Record<string, unknown> }
   /**

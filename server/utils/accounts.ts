@@ -52,11 +52,13 @@ export async function signIn(event: H3Event, email: string, password: string) {
   const ok = await verifyPassword(user?.passwordHash ?? decoyHash, password)
   if (!user || !ok || user.lockedAt) {
     countAttempt(rules)
-    if (user) await noteFailedSignIn(event, user.id, user.failedLogins + 1)
-    else await recordAudit(event, 'auth.login_failed', { detail: { reason: 'unknown-email' } })
     if (user?.lockedAt && ok) {
+      // The right password is not a failure: it leaves the count alone, and the person learns how to get back in.
+      await recordAudit(event, 'auth.login_locked', { userId: user.id })
       throw httpError(423, 'This account is locked after too many failed sign-ins. Reset the password, or ask a team owner to unlock it.')
     }
+    if (user) await noteFailedSignIn(event, user.id, user.failedLogins + 1)
+    else await recordAudit(event, 'auth.login_failed', { detail: { reason: 'unknown-email' } })
     throw httpError(401, BAD_CREDENTIALS)
   }
   if (user.failedLogins) await useDb().update(tables.users).set({ failedLogins: 0 }).where(eq(tables.users.id, user.id))

@@ -4,7 +4,7 @@ import { tables, useDb, type DbOrTx } from './db'
 import type { TeamAccess } from './guard'
 
 export type AuditAction
-  = | 'auth.register' | 'auth.login' | 'auth.login_failed' | 'auth.locked' | 'auth.logout_everywhere'
+  = | 'auth.register' | 'auth.login' | 'auth.login_failed' | 'auth.locked' | 'auth.login_locked' | 'auth.logout_everywhere'
     | 'auth.password_changed' | 'auth.password_reset_requested' | 'auth.password_reset'
     | 'team.created' | 'team.updated' | 'invitation.created' | 'invitation.revoked' | 'invitation.accepted'
     | 'member.role_changed' | 'member.removed' | 'member.left' | 'member.sessions_ended' | 'member.unlocked'

@@ -174,9 +174,12 @@ const statusList = z.string().max(200).optional().transform((raw, ctx) => {
   }
   return parts as (typeof ITEM_STATUSES[number])[]
 })
+const queryFlag = z.enum(['1', '0', 'true', 'false'], { message: 'Use 1 or 0.' }).optional().transform(v => v === '1' || v === 'true')
 export const itemFilterQuery = z.object({
   status: statusList,
   categoryId: queryId,
+  // With categoryId: the items filed in its subcategories too, as the category's own figures count them.
+  subcategories: queryFlag,
   markId: queryId,
   makerId: queryId,
   materialId: queryId,
@@ -241,7 +244,7 @@ export const calculatorSchema = z.object({
 export const IMPORT_FIELDS = [
   'externalId', 'title', 'status', 'quantity', 'condition', 'damageFlags', 'damageNotes', 'weightGrams',
   'boxLengthMm', 'boxWidthMm', 'boxHeightMm', 'categoryId', 'category', 'markId', 'mark', 'makerId', 'maker',
-  'materialId', 'material', 'tripId', 'store', 'acquiredOn', 'cost', 'listedOn', 'asking', 'channel', 'soldOn',
+  'materialId', 'material', 'tripId', 'store', 'acquiredOn', 'currency', 'cost', 'listedOn', 'asking', 'channel', 'soldOn',
   'shippedOn', 'salePrice', 'shippingCharged', 'postage', 'supplies', 'fees', 'refund', 'notes',
 ] as const
 export type ImportField = typeof IMPORT_FIELDS[number]

@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest'
 import { expectError } from '../support/api'
 import { closeTestDb } from '../support/db'
 import { createEntry } from '../support/wiki'
-import { newLedgerTeam, newItem } from '../support/ledger'
+import { newLedgerTeam, newItem, uploadCsv } from '../support/ledger'
 import { LEDGER_CURRENCIES } from '../../shared/ledger/currencies'
 
 afterAll(closeTestDb)
@@ -64,5 +64,23 @@ describe('team currency', async () => {
     expect(csv.meta.fields).toContain('currency')
     expect(csv.data).toEqual([expect.objectContaining({ title: 'Euro jug', currency: 'EUR', cost: '4.50', salePrice: '23.50' })])
     expect(res.body as string).not.toContain('€')
+  })
+
+  it('imports rows in the team\'s currency and refuses, by row, amounts kept in another one', async () => {
+    const csv = [
+      'title,acquiredOn,currency,cost',
+      'Euro cup,2024-04-02,EUR,3.00',
+      'Euro saucer,2024-04-02,eur,1.50',
+      'Dollar plate,2024-04-02,USD,2.00',
+      'Unsaid bowl,2024-04-02,,2.25',
+    ].join('\n')
+    const res = await uploadCsv(team.contributor, team, csv, '?dryRun=1')
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expect(res.body).toMatchObject({ rows: 4, validRows: 3, errorCount: 1 })
+    expect(res.body.errors).toEqual([expect.objectContaining({ row: 4, column: 'currency', field: 'currency' })])
+    expect(res.body.errors[0].message).toMatch(/in USD, but this team keeps its ledger in EUR/)
+    // The other team keeps dollars: the same file's euro rows are the refused ones there.
+    const there = await uploadCsv(other.contributor, other, csv, '?dryRun=1')
+    expect(there.body.errors.map((e: { row: number }) => e.row)).toEqual([2, 3])
   })
 })

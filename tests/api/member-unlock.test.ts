@@ -30,7 +30,11 @@ describe('POST /api/teams/[team]/members/[userId]/unlock', async () => {
     expectError(await new Person().post('/api/auth/login', { email: member.person.email, password: STRONG_PASSWORD }), 423, /ask a team owner to unlock it/)
     expect((await listed(editor.person)).locked).toBe(true)
 
-    // The refused sign-in above counted one more failure.
+    // The right password on a locked account is refused but is not one more failure; the refusal is audited.
+    expect(await lockState(member.id)).toEqual({ locked: true, failedLogins: 100 })
+    expect(await auditEvents('auth.login_locked', { userId: member.id })).toHaveLength(1)
+    // A wrong password still counts.
+    expectError(await new Person().post('/api/auth/login', { email: member.person.email, password: 'not the password at all' }), 401)
     expect(await lockState(member.id)).toEqual({ locked: true, failedLogins: 101 })
     const res = await unlock(owner, member.id)
     expect(res.status, JSON.stringify(res.body)).toBe(200)

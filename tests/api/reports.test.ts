@@ -411,12 +411,18 @@ describe('reports, outcomes and the buy check', async () => {
         expectFigures(res.body.figures, expected, `${e.type} ${e.id} ${period}`)
         if (!from && expected.sold) withSales++
       }
-      // The link into the ledger lists exactly the items filed under the entry (a category: directly in it).
+      // The link into the ledger lists exactly the items its figures count (a category: with its subcategories).
       const { ledgerQuery } = (await team.viewer.get(team.api(`/outcomes?type=${e.type}&id=${e.id}`))).body as { ledgerQuery: Record<string, string> }
       const listed = await team.viewer.get(team.api(`/items?${new URLSearchParams({ ...ledgerQuery, pageSize: '100' })}`))
       expect(listed.status).toBe(200)
       expect(listed.body.items.map((i: Item) => i.id).sort((a: number, b: number) => a - b), `${e.type} ${e.id} ledger link`)
-        .toEqual(items.filter(e.filed).map(i => i.id).sort((a, b) => a - b))
+        .toEqual(items.filter(e.has).map(i => i.id).sort((a, b) => a - b))
+      if (e.type === 'category') {
+        // Without the flag, the list holds only the items filed directly in the category.
+        const direct = await team.viewer.get(team.api(`/items?${new URLSearchParams({ categoryId: String(e.id), pageSize: '100' })}`))
+        expect(direct.body.items.map((i: Item) => i.id).sort((a: number, b: number) => a - b), `${e.type} ${e.id} filed directly`)
+          .toEqual(items.filter(e.filed).map(i => i.id).sort((a, b) => a - b))
+      }
     }
     // The fixture is not all empty entries: most have sales to compare.
     expect(withSales).toBeGreaterThanOrEqual(10)

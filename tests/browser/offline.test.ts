@@ -182,6 +182,11 @@ describe('with no signal', () => {
     await page.getByRole('button', { name: 'Add note' }).click()
     await page.getByText(/No signal: “Note on QUELLMOOR POTTERY CO” is kept on this phone/).waitFor()
     await page.getByLabel('Item', { exact: true }).fill('Quellmoor jug, cream')
+    // A mistyped amount is refused on the phone, with the reason, and nothing is queued for it.
+    await page.getByLabel('Paid').fill('3.5.0')
+    await page.getByRole('button', { name: 'Add to the items' }).click()
+    await page.getByText(/Please check the amount: the digit groups in "3\.5\.0" are not in threes/).waitFor()
+    await expect.poll(() => page.getByTestId('saved-queued').count()).toBe(1)
     await page.getByLabel('Paid').fill('3.50')
     await page.getByRole('button', { name: 'Add to the items' }).click()
     await page.getByText(/No signal: “Item “Quellmoor jug, cream”” is kept/).waitFor()
@@ -375,6 +380,10 @@ describe('the sales ledger with no signal', () => {
     const conflict = page.getByTestId('offline-conflict')
     await conflict.waitFor({ timeout: 30_000 })
     await expect.poll(() => conflict.locator('[data-field="salePriceCents"]').innerText()).toMatch(/Sale price\s+Your version\s+\$18\.00\s+Saved meanwhile\s+\(empty\)/i)
+    // What the other person changed shows too, though the sale did not send it: the title, and nothing else.
+    await expect.poll(() => conflict.locator('[data-field="title"]').innerText())
+      .toMatch(/Title \(changed meanwhile\)\s+When you made your change\s+Celadon ewer\s+Saved meanwhile(?: by [^\n]+)?\s+Celadon ewer, tall/i)
+    expect(await conflict.locator('[data-field]').evaluateAll(rows => rows.map(r => r.getAttribute('data-field')).filter(f => !f!.endsWith('Cents') && f !== 'soldOn' && f !== 'feeProfileId' && f !== 'note'))).toEqual(['title'])
     await expect.poll(() => page.getByTestId('offline-banner').innerText()).toMatch(/1 change could not be saved/)
     await shot(page, 'offline-phone-ledger-conflict')
     await page.getByRole('button', { name: 'Save mine over it' }).click()

@@ -138,14 +138,20 @@ describe('sales outcomes on the wiki entry pages', () => {
         listed: 4,
         chip: /Material: Earthenware/,
       })
-      // The category counts its subcategory; its ledger link lists the two pieces filed directly in it.
+      // The category counts its subcategory, and so does the list its ledger link opens: all six pieces.
       await checkEntry(page, {
         path: `/categories/${ids.jugs}`,
         figures: { 'Sold': /^4 /, 'Net profit': /^\$61\.00$/ },
         ledgerParam: 'categoryId',
-        listed: 2,
+        listed: 6,
       }, `outcomes-${size}-category`)
       expect(await page.locator('#f-category').inputValue()).toBe(String(ids.jugs))
+      // Unticking the subcategories leaves the two pieces filed directly under Jugs.
+      if (!await page.locator('#f-subcategories').isVisible()) await page.locator('summary').filter({ hasText: /Filters/ }).click()
+      expect(await page.locator('#f-subcategories').isChecked()).toBe(true)
+      await page.locator('#f-subcategories').uncheck()
+      await expect.poll(() => page.locator('[data-total="items"]').textContent(), POLL).toMatch(/Items\s*2\b/)
+      expect(new URL(page.url()).searchParams.get('subcategories')).toBeNull()
       await page.goto(`/t/${slug}/categories/${ids.jugs}`)
       await hydrated(page)
       await expect.poll(() => page.getByRole('region', { name: 'Sales outcomes' }).textContent(), POLL).toMatch(/Includes the items of its subcategories/)

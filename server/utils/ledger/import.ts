@@ -87,6 +87,7 @@ async function loadLookups(db: DbOrTx, teamId: number, needTrips: boolean) {
     feeProfilesByName: new Map(feeProfiles.flatMap(p => [[p.channel.trim().toLowerCase(), p], [p.name.trim().toLowerCase(), p]] as const).filter(([k]) => k)),
     defaultFeeProfile: feeProfiles.find(p => p.defaultFlag === 1) ?? null,
     conditionScale: new Set(settings.conditionScale),
+    currency: settings.currency,
   }
 }
 
@@ -255,6 +256,11 @@ export async function ledgerImportItems(access: TeamAccess, csvText: string, opt
     const sides = (['boxLengthMm', 'boxWidthMm', 'boxHeightMm'] as const).map(f => whole(f, 1))
     if (sides.some(s => s !== null) && sides.some(s => s === null)) fail('boxLengthMm', 'Give all three box sides, or none')
 
+    // Amounts are read as the team's currency; a file kept in another one would be read wrongly, not converted.
+    const currency = get('currency').toUpperCase()
+    if (currency && currency !== lookups.currency) {
+      fail('currency', `The amounts on this row are in ${currency}, but this team keeps its ledger in ${lookups.currency}: convert them first, or change the team's currency in the ledger settings`)
+    }
     const acquiredOn = date('acquiredOn') ?? trip?.tripDate ?? null
     const listedOn = date('listedOn')
     const soldOn = date('soldOn')

@@ -222,7 +222,8 @@ export async function reportOutcomesCompute(exec: ReportExec, input: ReportOutco
         daysToSell: soldOn && acquiredOn <= soldOn ? dayNumber(soldOn) - dayNumber(acquiredOn) : null,
       }
     }),
-    ledgerQuery: { [meta.ledger]: String(input.id) },
+    // A category's figures count its subcategories' items: so does the list its link opens.
+    ledgerQuery: input.type === 'category' ? { [meta.ledger]: String(input.id), subcategories: '1' } : { [meta.ledger]: String(input.id) },
     definitions: reportDefinitions(),
   }
 }

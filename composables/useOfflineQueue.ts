@@ -26,8 +26,8 @@ export interface EnqueueInput {
   dependsOn?: number
   /** Reused when a change first tried online is queued after getting no answer. */
   idempotencyKey?: string
-  /** The version the change was made on (see QueuedChange.base). */
-  base?: Record<string, unknown>
+  /** The version the change was made on (see QueuedChange.base): any plain record, such as an item. */
+  base?: object
 }
 
 export const QUEUE_RETRY_MS = 30_000

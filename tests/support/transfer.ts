@@ -11,6 +11,7 @@ import { seedDemoReference } from '../../server/database/seed/reference'
 import { seedDemoLedger } from '../../server/database/seed/demo-ledger'
 import { seedDemoPhotos } from '../../server/database/seed/photos'
 import { createLocalStorageDriver } from '../../server/utils/storage/local'
+import type { StorageDriver } from '../../server/utils/storage'
 import { baseUrl, type Person } from './api'
 import { query, teamIdOf } from './db'
 import { testStorageDir } from './photos'
@@ -27,9 +28,9 @@ async function userIdOf(person: Person): Promise<number> {
  * A team like the demo team (its reference with revisions and notes, its ledger with trips and items, drawn
  * photos), seeded in-process by the demo seed's own functions, then given history over the API: an edit with
  * links between entries, a restore, a deleted entry, a lookalike pair, notes, a sale with its note, an item
- * photo, buy targets.
+ * photo, buy targets. The photo files go to `storage` (the local folder the test app uses, unless told otherwise).
  */
-export async function seedFixtureTeam(name = 'Transfer Source'): Promise<FixtureTeam> {
+export async function seedFixtureTeam(name = 'Transfer Source', storage: StorageDriver = createLocalStorageDriver(testStorageDir())): Promise<FixtureTeam> {
   const team = await newWikiTeam(name)
   const id = await teamIdOf(team.slug)
   const userIds = {
@@ -43,7 +44,7 @@ export async function seedFixtureTeam(name = 'Transfer Source'): Promise<Fixture
       await seedDemoReference(tx, id, { editors: [userIds.owner, userIds.editor], noteAuthors: [userIds.contributor, userIds.editor, userIds.owner] })
       await seedDemoLedger(tx, id, { sourcers: [userIds.owner, userIds.editor, userIds.contributor], today: '2026-05-01' })
     })
-    await seedDemoPhotos(db, id, userIds.owner, createLocalStorageDriver(testStorageDir()), 3)
+    await seedDemoPhotos(db, id, userIds.owner, storage, 3)
   }
   finally {
     await connection.end()
@@ -78,8 +79,9 @@ export async function seedFixtureTeam(name = 'Transfer Source'): Promise<Fixture
   return { ...team, id, userIds }
 }
 
-export async function download(person: Person, path: string): Promise<{ status: number, headers: Headers, bytes: Buffer }> {
-  const res = await fetch(baseUrl + path, { headers: { cookie: person.cookieHeader() } })
+/** A GET with the person's cookies, the whole body as bytes; `base` is another app instance's address. */
+export async function download(person: Person, path: string, base = baseUrl): Promise<{ status: number, headers: Headers, bytes: Buffer }> {
+  const res = await fetch(base + path, { headers: { cookie: person.cookieHeader() } })
   return { status: res.status, headers: res.headers, bytes: Buffer.from(await res.arrayBuffer()) }
 }
 

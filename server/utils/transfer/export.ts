@@ -1,23 +1,40 @@
-// The team export: a zip with team.json (shared/schemas/transfer.ts) and every photo's stored copies, written
-// as the download goes. Rows are read 1,000 at a time inside one transaction with a consistent
-// snapshot, so the file is one moment of the team even while others keep working; photo files are copied one
-// at a time from the storage driver, so memory stays bounded whatever the team's size.
+// The team export, first half: every row of the team read in ONE short transaction with a consistent snapshot
+// (1,000 rows at a time), written to a temporary folder: team.json without its photos, the photos one per line
+// with their storage keys, and the people. The transaction ends there, before a single byte goes to the client;
+// export-zip.ts then copies the photo files from storage and streams the zip at the client's pace. Photo files
+// are immutable objects under keys that are never reused, so reading them after the snapshot reads the snapshot.
+import { createWriteStream } from 'node:fs'
+import { mkdtemp, rm } from 'node:fs/promises'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { Readable } from 'node:stream'
-import { ZipArchive, type ZipEntryData } from 'archiver'
+import { pipeline } from 'node:stream/promises'
 import { and, asc, eq, gt, inArray, type SQL } from 'drizzle-orm'
 import type { MySqlColumn, MySqlTable } from 'drizzle-orm/mysql-core'
 import { TRANSFER_FORMAT, TRANSFER_VERSION } from '../../../shared/schemas/transfer'
 import type { WikiEntryType } from '../../../shared/schemas/wiki'
-import { useStorageDriver, type StoredObject } from '../storage'
 import { wikiConfigs } from '../wiki/registry'
-import { TRANSFER_JSON_NAME, transferPhotoFiles } from './format'
+import { transferPhotoFiles } from './format'
 
 const PAGE = 1_000
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
 type Row = Record<string, any>
 const ENTRY_COLLECTIONS: Record<WikiEntryType, string> = { mark: 'marks', maker: 'makers', material: 'materials', category: 'categories' }
-type Files = { display: string, thumb: string }
+
+/** The snapshot on disk, for export-zip.ts; `cleanup` removes the folder (the zip writer calls it in every case). */
+export interface TransferExportSnapshot {
+  dir: string
+  /** team.json up to its photos, the photos (one JSON line each: `{ keys, photo }`), and its people with the end. */
+  files: { head: string, photos: string, tail: string }
+  cleanup: () => Promise<void>
+}
+
+/** One line of the photos file: where the two copies are stored, and the photo as team.json lists it. */
+export interface TransferExportPhotoLine {
+  keys: { display: string, thumb: string }
+  photo: Row & { id: number, createdAt: string, files: { display: string, thumb: string } }
+}
 
 /** The rows of a team's table with an id column, in id order, a page at a time. */
 async function* pages(tx: Transaction, table: MySqlTable & { id: MySqlColumn, teamId: MySqlColumn }, teamId: number, extra?: SQL): AsyncGenerator<Row[]> {
@@ -78,9 +95,9 @@ class ExportWriter {
   }
 }
 
-async function* teamJson(tx: Transaction, access: TeamAccess, photoFiles: Map<number, Files>): AsyncGenerator<string> {
-  const teamId = access.team.id
-  const w = new ExportWriter(tx, teamId)
+/** team.json from its start up to (not including) the photos. */
+async function* teamJsonHead(w: ExportWriter): AsyncGenerator<string> {
+  const { tx, teamId } = w
   const t = tables
   const [team] = await tx.select().from(t.teams).where(eq(t.teams.id, teamId))
   const [settings] = await tx.select().from(t.ledgerSettings).where(eq(t.ledgerSettings.teamId, teamId))
@@ -145,11 +162,29 @@ async function* teamJson(tx: Transaction, access: TeamAccess, photoFiles: Map<nu
       })),
     }))
   })
-  yield* w.array('photos', pages(tx, t.photos, teamId), rows => rows.filter(r => photoFiles.has(r.id)).map(r => ({
-    id: r.id, entityType: r.entityType, entityId: r.entityId, position: r.position, contentType: r.contentType,
-    width: r.width, height: r.height, thumbWidth: r.thumbWidth, thumbHeight: r.thumbHeight, bytes: r.bytes, originalBytes: r.originalBytes,
-    uploadedBy: w.user(r.uploadedBy), createdAt: iso(r.createdAt), files: photoFiles.get(r.id),
-  })))
+}
+
+/** The photos, one line each; the zip writer keeps those whose files it finds. */
+async function* photoLines(w: ExportWriter): AsyncGenerator<string> {
+  for await (const rows of pages(w.tx, tables.photos, w.teamId)) {
+    yield rows.map((r) => {
+      const line: TransferExportPhotoLine = {
+        keys: { display: r.displayKey, thumb: r.thumbKey },
+        photo: {
+          id: r.id, entityType: r.entityType, entityId: r.entityId, position: r.position, contentType: r.contentType,
+          width: r.width, height: r.height, thumbWidth: r.thumbWidth, thumbHeight: r.thumbHeight, bytes: r.bytes, originalBytes: r.originalBytes,
+          uploadedBy: w.user(r.uploadedBy), createdAt: iso(r.createdAt)!, files: transferPhotoFiles(r.id, r.contentType),
+        },
+      }
+      return `${JSON.stringify(line)}\n`
+    }).join('')
+  }
+}
+
+/** team.json after the photos: the people, and the end. */
+async function* teamJsonTail(w: ExportWriter): AsyncGenerator<string> {
+  const { tx, teamId } = w
+  const t = tables
   // Last: everyone the rows above name, and every member, so an import can match them by e-mail.
   const m = t.memberships
   const members = await tx.select({ userId: m.userId, role: m.role }).from(m).where(eq(m.teamId, teamId))
@@ -165,71 +200,32 @@ async function* teamJson(tx: Transaction, access: TeamAccess, photoFiles: Map<nu
   yield ']}'
 }
 
-/** Adds one entry and waits until the zip has written it, so only one photo file is in flight at a time. */
-function addEntry(zip: ZipArchive, source: Readable | Buffer, data: ZipEntryData, signal: AbortSignal): Promise<void> {
-  return new Promise((resolve, reject) => {
-    const done = (error?: Error) => {
-      zip.off('entry', onEntry)
-      zip.off('error', onError)
-      zip.off('close', onClose)
-      signal.removeEventListener('abort', onClose)
-      if (error) reject(error)
-      else resolve()
-    }
-    const onEntry = (entry: ZipEntryData) => entry.name === data.name && done()
-    const onError = (error: Error) => done(error)
-    const onClose = () => done(new Error('The download was closed before the export was complete.'))
-    if (signal.aborted) return onClose()
-    zip.on('entry', onEntry)
-    zip.once('error', onError)
-    zip.once('close', onClose)
-    signal.addEventListener('abort', onClose, { once: true })
-    zip.append(source as Readable, data)
-  })
-}
-
-function discard(object: StoredObject | null) {
-  if (object && !Buffer.isBuffer(object.body)) object.body.destroy()
-}
-
-async function writeExport(access: TeamAccess, zip: ZipArchive, signal: AbortSignal) {
-  const storage = useStorageDriver()
-  const teamId = access.team.id
-  // Recorded when it starts: the file holds every member's e-mail address, even if the download breaks off.
-  await recordTeamAudit(access, 'team.exported', { targetType: 'team', targetId: teamId })
-  await useDb().transaction(async (tx) => {
-    // Photo files first: a photo whose files are missing from storage is left out of team.json too.
-    const written = new Map<number, Files>()
-    for await (const rows of pages(tx, tables.photos, teamId)) {
-      for (const photo of rows) {
-        const [display, thumb] = [await storage.get(photo.displayKey), await storage.get(photo.thumbKey)]
-        if (!display || !thumb) {
-          discard(display)
-          discard(thumb)
-          console.error('[transfer] photo files missing from storage, left out of the export', photo.id)
-          continue
-        }
-        const files = transferPhotoFiles(photo.id, photo.contentType)
-        // Already compressed images: stored as they are.
-        await addEntry(zip, display.body, { name: files.display, store: true, date: photo.createdAt }, signal)
-        await addEntry(zip, thumb.body, { name: files.thumb, store: true, date: photo.createdAt }, signal)
-        written.set(photo.id, files)
-      }
-    }
-    await addEntry(zip, Readable.from(teamJson(tx, access, written)), { name: TRANSFER_JSON_NAME, date: new Date() }, signal)
-  }, { isolationLevel: 'repeatable read', withConsistentSnapshot: true })
-  await zip.finalize()
+async function writeFile(path: string, parts: AsyncGenerator<string>) {
+  await pipeline(Readable.from(parts), createWriteStream(path, { mode: 0o600 }))
 }
 
 /**
- * The export zip as a stream. `signal` ends the work when the download is closed early; a failure half-way
- * breaks the download (a truncated zip does not open) rather than letting it look complete.
+ * Reads the whole team in one REPEATABLE READ transaction WITH CONSISTENT SNAPSHOT into a temporary folder and
+ * ends the transaction; nothing of the download's pace reaches the database. On failure the folder is gone again.
  */
-export function transferExportStream(access: TeamAccess, signal: AbortSignal): Readable {
-  const zip = new ZipArchive({ zlib: { level: 6 } })
-  writeExport(access, zip, signal).catch((error: unknown) => {
-    if (!signal.aborted) console.error('[transfer] export failed', error)
-    zip.destroy(error instanceof Error ? error : new Error(String(error)))
-  })
-  return zip
+export async function transferExportSnapshot(access: TeamAccess): Promise<TransferExportSnapshot> {
+  const teamId = access.team.id
+  // Recorded when it starts: the file holds every member's e-mail address, even if the download breaks off.
+  await recordTeamAudit(access, 'team.exported', { targetType: 'team', targetId: teamId })
+  const dir = await mkdtemp(join(tmpdir(), 'tallymark-export-'))
+  const cleanup = () => rm(dir, { recursive: true, force: true })
+  const files = { head: join(dir, 'team-head.json'), photos: join(dir, 'photos.ndjson'), tail: join(dir, 'team-tail.json') }
+  try {
+    await useDb().transaction(async (tx) => {
+      const w = new ExportWriter(tx, teamId)
+      await writeFile(files.head, teamJsonHead(w))
+      await writeFile(files.photos, photoLines(w))
+      await writeFile(files.tail, teamJsonTail(w))
+    }, { isolationLevel: 'repeatable read', withConsistentSnapshot: true })
+  }
+  catch (error) {
+    await cleanup()
+    throw error
+  }
+  return { dir, files, cleanup }
 }

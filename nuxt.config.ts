@@ -118,7 +118,7 @@ export default defineNuxtConfig({
     },
   },
   // Security headers and a nonce-based Content-Security-Policy (OWASP ASVS 5.0 V3). HSTS and the
-  // __Host- session cookie are switched on at run time in production (server/plugins/production-security.ts).
+  // __Host- session cookie are switched on at run time in production (server/middleware/0.production.ts).
   security: {
     nonce: true,
     headers: {

@@ -20,9 +20,10 @@ export function useDb(): Database {
     charset: 'utf8mb4_unicode_ci',
     connectTimeout: 5_000,
   })
-  // CURRENT_TIMESTAMP and NOW() must be UTC whatever the server's own zone is.
+  // CURRENT_TIMESTAMP and NOW() must be UTC whatever the server's own zone is. JSON_ARRAYAGG (an entry page's
+  // lists, wiki/detail.ts) stops at group_concat_max_len (1 MiB by default): as much as a packet may carry instead.
   pool.on('connection', (conn) => {
-    conn.query('SET time_zone = \'+00:00\'')
+    conn.query('SET time_zone = \'+00:00\', group_concat_max_len = 16777216')
   })
   database = drizzle(pool, { schema, mode: 'default' })
   return database

@@ -15,8 +15,12 @@ import { tables, useDb, type DbOrTx } from './db'
 import { forbidden, httpError, notFound, zodFieldErrors } from './http-errors'
 import type { TeamAccess } from './guard'
 import { recordTeamAudit } from './audit'
+import { wikiPageChanged } from './wiki/versions'
 
 export type PhotoRow = typeof tables.photos.$inferSelect
+
+/** A mark's or maker's photos are part of its page: the wiki's page cache must hear of their changes (wiki/versions.ts). */
+const onWikiPage = (type: PhotoEntityType | undefined) => type === 'mark' || type === 'maker'
 
 const ENTITY_LABEL: Record<PhotoEntityType, string> = { mark: 'mark', maker: 'maker', item: 'sale item' }
 // Export names in server/database/schema looked up at run time, so photos work for each entry type as soon
@@ -30,7 +34,7 @@ export function photoUrls(teamSlug: string, photoId: number): { thumbUrl: string
   return { thumbUrl: `${base}/thumb`, displayUrl: `${base}/display` }
 }
 
-function entryPhoto(teamSlug: string, row: Pick<PhotoRow, 'id' | 'width' | 'height'>): EntryPhoto {
+export function entryPhoto(teamSlug: string, row: Pick<PhotoRow, 'id' | 'width' | 'height'>): EntryPhoto {
   return { id: row.id, width: row.width, height: row.height, ...photoUrls(teamSlug, row.id) }
 }
 
@@ -191,6 +195,7 @@ export async function storePhoto(input: StorePhotoInput, db: DbOrTx = useDb(), s
         originalBytes: input.bytes.length,
         uploadedBy: input.uploadedBy,
       }).$returningId()
+      if (input.entityId && onWikiPage(input.entityType)) await wikiPageChanged(tx, input.teamId)
       return row!.id
     })
     return { id, width: processed.display.width, height: processed.display.height }
@@ -242,6 +247,8 @@ export async function attachPhoto(access: TeamAccess, photoId: number, input: Ph
       const position = await nextPosition(tx, access.team.id, input.entityType, input.entityId)
       await tx.update(tables.photos).set({ entityType: input.entityType, entityId: input.entityId, position }).where(eq(tables.photos.id, photo.id))
     }
+    // Whatever the types: the photo was read without a lock, and may have been moved to an entry since.
+    await wikiPageChanged(tx, access.team.id)
     return { ...entryPhoto(access.team.slug, photo), entityType: input.entityType, entityId: input.entityId }
   })
 }
@@ -253,6 +260,8 @@ export async function deletePhoto(access: TeamAccess, photoId: number): Promise<
   await useDb().transaction(async (tx) => {
     await tx.delete(tables.photos).where(and(eq(tables.photos.id, photo.id), eq(tables.photos.teamId, access.team.id)))
     await recordTeamAudit(access, 'photo.deleted', { targetType: 'photo', targetId: photo.id, detail: { entityType: photo.entityType, entityId: photo.entityId } }, tx)
+    // Whatever its type: it was read before this transaction, and may have been moved to an entry since.
+    await wikiPageChanged(tx, access.team.id)
   })
   // The row is gone first: a failed object delete leaves an unreachable file, never a broken photo.
   await removeObjects([photo.displayKey, photo.thumbKey])

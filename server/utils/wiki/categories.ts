@@ -1,5 +1,5 @@
 // Categories: a tree of kinds of goods (Glass › Pressed glass), used to file marks.
-import { and, asc, count, eq, inArray, isNull, like } from 'drizzle-orm'
+import { and, asc, count, eq, inArray, isNull, like, sql } from 'drizzle-orm'
 import { categories, markCategories } from '../../database/schema'
 import {
   EMPTY_CATEGORY, categoryContentSchema, categoryCreateSchema, categoryListQuery, categoryPatchSchema,
@@ -7,7 +7,7 @@ import {
 } from '../../../shared/schemas/wiki'
 import type { DbOrTx } from '../db'
 import { wikiCheckRefs } from './refs'
-import type { WikiFieldErrors, WikiTypeConfig } from './types'
+import { wikiJsonRows, wikiRows, type WikiFieldErrors, type WikiTypeConfig } from './types'
 
 type CategoryRow = typeof categories.$inferSelect
 
@@ -27,6 +27,21 @@ function ancestors(parents: Map<number, { parentId: number | null, name: string 
     path.unshift({ id: at, name: parents.get(at)?.name ?? '' })
   }
   return path
+}
+
+function categoryExtras(contents: Map<number, CategoryContent>, parents: Map<number, { parentId: number | null, name: string }>,
+  childRows: { id: number, name: string, parentId: number | null }[], detail: boolean): Map<number, Record<string, unknown>> {
+  const out = new Map<number, Record<string, unknown>>()
+  for (const [id, c] of contents) {
+    const parent = c.parentId === null ? undefined : parents.get(c.parentId)
+    out.set(id, {
+      parent: parent && c.parentId !== null ? { id: c.parentId, name: parent.name } : null,
+      ...(detail
+        ? { path: ancestors(parents, id), children: childRows.filter(r => r.parentId === id).map(r => ({ id: r.id, name: r.name })) }
+        : {}),
+    })
+  }
+  return out
 }
 
 export const wikiCategoryConfig: WikiTypeConfig<CategoryContent, CategoryListQuery> = {
@@ -64,24 +79,14 @@ export const wikiCategoryConfig: WikiTypeConfig<CategoryContent, CategoryListQue
     return { content, fieldErrors: errors }
   },
   async extras(db, teamId, contents, detail) {
-    const out = new Map<number, Record<string, unknown>>()
-    if (!contents.size) return out
+    if (!contents.size) return new Map<number, Record<string, unknown>>()
     const parents = await parentMap(db, teamId, false)
     const childRows = detail
       ? await db.select({ id: categories.id, name: categories.name, parentId: categories.parentId }).from(categories)
           .where(and(eq(categories.teamId, teamId), inArray(categories.parentId, [...contents.keys()]), isNull(categories.deletedAt)))
           .orderBy(asc(categories.name))
       : []
-    for (const [id, c] of contents) {
-      const parent = c.parentId === null ? undefined : parents.get(c.parentId)
-      out.set(id, {
-        parent: parent && c.parentId !== null ? { id: c.parentId, name: parent.name } : null,
-        ...(detail
-          ? { path: ancestors(parents, id), children: childRows.filter(r => r.parentId === id).map(r => ({ id: r.id, name: r.name })) }
-          : {}),
-      })
-    }
-    return out
+    return categoryExtras(contents, parents, childRows, detail)
   },
   async listConditions(_db, _teamId, query) {
     if (query.parentId === undefined) return []
@@ -105,4 +110,18 @@ export const wikiCategoryConfig: WikiTypeConfig<CategoryContent, CategoryListQue
     return reasons.length ? `${reasons.join(' and ')} (counting deleted ones) still sit in this category: move or purge them first.` : null
   },
   photoType: null,
+  // The team's tree (as parentMap reads it) and the live subcategories, as JSON lists beside the row (`categories`).
+  detail: {
+    columns: teamId => ({
+      tree: wikiJsonRows(sql`(select json_arrayagg(json_array(c.id, c.parent_id, c.name)) from categories c where c.team_id = ${teamId})`),
+      children: wikiJsonRows(sql`(select json_arrayagg(json_array(c.id, c.name) order by c.name, c.id) from categories c
+        where c.team_id = ${teamId} and c.parent_id = categories.id and c.deleted_at is null)`),
+    }),
+    extras: (id, content, v) => categoryExtras(
+      new Map([[id, content]]),
+      new Map(wikiRows<[number, number | null, string]>(v.tree).map(([treeId, parentId, name]) => [treeId, { parentId, name }])),
+      wikiRows<[number, string]>(v.children).map(([childId, name]) => ({ id: childId, name, parentId: id })),
+      true,
+    ).get(id)!,
+  },
 }

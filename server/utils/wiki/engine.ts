@@ -7,8 +7,11 @@ import { roleAtLeast } from '../../../shared/roles'
 import type { WikiEntryType } from '../../../shared/schemas/wiki'
 import type { WikiSaved } from '../../../shared/types/wiki'
 import { wikiChangedFields, wikiDefinedOnly, wikiLinkTargets, wikiNewContent } from './content'
+import { wikiReadDetail } from './detail'
+import { wikiPageLookup, wikiPageStore } from './page-cache'
 import { wikiExistingIds } from './refs'
 import { wikiConfigs } from './registry'
+import { wikiPageChanged } from './versions'
 import { wikiLikeEscape, type WikiBaseRow, type WikiFieldErrors, type WikiTypeConfig } from './types'
 import { searchTrackChange } from '../search/changes'
 
@@ -61,6 +64,8 @@ async function userNames(db: DbOrTx, ids: number[]): Promise<Map<number, string>
 
 const person = (names: Map<number, string>, id: number | null) => id === null ? null : { id, name: names.get(id) ?? '' }
 
+const sortBacklinks = <T extends { title: string }>(list: T[]) => list.sort((a, b) => a.title.localeCompare(b.title))
+
 /** Entries of the team whose markdown links to these entries (live ones only), for many targets at once. */
 async function wikiBacklinks(db: DbOrTx, teamId: number, toType: WikiEntryType, toIds: number[]) {
   const out = new Map<number, { type: WikiEntryType, id: number, title: string }[]>(toIds.map(id => [id, []]))
@@ -80,21 +85,19 @@ async function wikiBacklinks(db: DbOrTx, teamId: number, toType: WikiEntryType, 
     const title = titles.get(`${l.fromType}:${l.fromId}`)
     if (title !== undefined) out.get(l.toId)!.push({ type: l.fromType, id: l.fromId, title })
   }
-  for (const list of out.values()) list.sort((a, b) => a.title.localeCompare(b.title))
+  for (const list of out.values()) sortBacklinks(list)
   return out
 }
 
-/** The JSON of entries: content, rendered markdown, type extras, photos, backlinks and authorship. */
-export async function wikiPresent(access: TeamAccess, config: WikiTypeConfig, entries: WikiLoadedEntry[], detail: boolean): Promise<Record<string, unknown>[]> {
-  const db = useDb()
-  const ids = entries.map(e => e.row.id)
-  const contents = new Map(entries.map(e => [e.row.id, e.content]))
-  const [extras, backlinks, names, photos] = await Promise.all([
-    config.extras ? config.extras(db, access.team.id, contents, detail) : new Map<number, Record<string, unknown>>(),
-    wikiBacklinks(db, access.team.id, config.type, ids),
-    userNames(db, entries.flatMap(e => [e.row.createdBy, e.row.updatedBy, ...(e.row.deletedBy ? [e.row.deletedBy] : [])])),
-    config.photoType ? listEntryPhotos(access.team, config.photoType, ids) : new Map<number, unknown[]>(),
-  ])
+interface WikiPresentParts {
+  extras: Map<number, Record<string, unknown>>
+  backlinks: Map<number, { type: WikiEntryType, id: number, title: string }[]>
+  names: Map<number, string>
+  photos: Map<number, unknown[]>
+}
+
+/** The JSON of loaded entries, from what was read beside them (the one shape of an entry, list or page). */
+function wikiAssemble(config: WikiTypeConfig, entries: WikiLoadedEntry[], { extras, backlinks, names, photos }: WikiPresentParts): Record<string, unknown>[] {
   return entries.map(({ row, content }) => {
     const html: Record<string, string> = {}
     for (const field of config.markdownFields) html[`${field}Html`] = renderMarkdown(String(content[field] ?? ''))
@@ -118,10 +121,42 @@ export async function wikiPresent(access: TeamAccess, config: WikiTypeConfig, en
   })
 }
 
+/** The JSON of entries: content, rendered markdown, type extras, photos, backlinks and authorship. */
+export async function wikiPresent(access: TeamAccess, config: WikiTypeConfig, entries: WikiLoadedEntry[], detail: boolean): Promise<Record<string, unknown>[]> {
+  const db = useDb()
+  const ids = entries.map(e => e.row.id)
+  const contents = new Map(entries.map(e => [e.row.id, e.content]))
+  const [extras, backlinks, names, photos] = await Promise.all([
+    config.extras ? config.extras(db, access.team.id, contents, detail) : new Map<number, Record<string, unknown>>(),
+    wikiBacklinks(db, access.team.id, config.type, ids),
+    userNames(db, entries.flatMap(e => [e.row.createdBy, e.row.updatedBy, ...(e.row.deletedBy ? [e.row.deletedBy] : [])])),
+    config.photoType ? listEntryPhotos(access.team, config.photoType, ids) : new Map<number, unknown[]>(),
+  ])
+  return wikiAssemble(config, entries, { extras, backlinks, names, photos })
+}
+
+/**
+ * An entry's page: from this instance's page cache while the database still reads the versions it was built at
+ * (page-cache.ts, one statement), else one statement (detail.ts) for what wikiLoadEntries and wikiPresent read.
+ */
 async function presentOne(access: TeamAccess, config: WikiTypeConfig, id: number, includeDeleted: boolean) {
-  const entry = (await wikiLoadEntries(useDb(), config, access.team.id, [id], includeDeleted)).get(id)
-  if (!entry) throw notFoundEntry(config)
-  return (await wikiPresent(access, config, [entry], true))[0]!
+  const db = useDb()
+  const hit = await wikiPageLookup(db, config, access.team, id, includeDeleted)
+  if (hit) {
+    const [createdBy, updatedBy, deletedBy] = hit.people
+    return { ...hit.page, createdBy: person(hit.names, createdBy), updatedBy: person(hit.names, updatedBy), deletedBy: person(hit.names, deletedBy) }
+  }
+  const detail = await wikiReadDetail(db, config, access.team, id, includeDeleted)
+  if (!detail) throw notFoundEntry(config)
+  const { row, content, extras, backlinks, names, photos } = detail
+  const page = wikiAssemble(config, [{ row, content }], {
+    extras: new Map(extras ? [[id, extras]] : []),
+    backlinks: new Map([[id, sortBacklinks(backlinks)]]),
+    names,
+    photos: new Map([[id, photos]]),
+  })[0]!
+  wikiPageStore(config, access.team.id, id, includeDeleted, detail.versions, page, [row.createdBy, row.updatedBy, row.deletedBy])
+  return page
 }
 
 export async function wikiGetEntry(access: TeamAccess, type: WikiEntryType, id: number, includeDeleted: boolean) {
@@ -179,8 +214,10 @@ async function recordRevision(tx: Transaction, access: TeamAccess, config: WikiT
     restoredFrom: fields.restoredFrom ?? null, changedFields: fields.changedFields,
     snapshot: fields.snapshot as Record<string, unknown>, authorId: access.user.id,
   })
-  // Creates, edits and restores all record a revision: the search change log is written beside it.
+  // Creates, edits and restores all record a revision: the search change log is written beside it, and the
+  // team's wiki version moves on last (its row lock is held only until the commit that follows).
   await searchTrackChange(tx, access.team.id, config.type, id)
+  await wikiPageChanged(tx, access.team.id)
 }
 
 export async function wikiCreateEntry(access: TeamAccess, type: WikiEntryType, input: object): Promise<WikiSaveResult> {
@@ -316,6 +353,7 @@ export async function wikiSoftDelete(access: TeamAccess, type: WikiEntryType, id
     if (result.affectedRows !== 1) throw notFoundEntry(config)
     await searchTrackChange(tx, access.team.id, config.type, id)
     await recordTeamAudit(access, 'entry.deleted', { targetType: config.type, targetId: id }, tx)
+    await wikiPageChanged(tx, access.team.id)
   })
   return { id, deleted: true }
 }
@@ -329,6 +367,7 @@ export async function wikiUndelete(access: TeamAccess, type: WikiEntryType, id: 
     if (result.affectedRows !== 1) throw notFound(`No ${config.label} with this id in the deleted list.`)
     await searchTrackChange(tx, access.team.id, config.type, id)
     await recordTeamAudit(access, 'entry.restored', { targetType: config.type, targetId: id }, tx)
+    await wikiPageChanged(tx, access.team.id)
   })
   return { id, deleted: false }
 }
@@ -354,6 +393,7 @@ export async function wikiPurge(access: TeamAccess, type: WikiEntryType, id: num
     await searchTrackChange(tx, teamId, config.type, id)
     // The row is gone for good: the event keeps its title, so the log still says what was removed.
     await recordTeamAudit(access, 'entry.purged', { targetType: config.type, targetId: id, detail: { title: row.title } }, tx)
+    await wikiPageChanged(tx, teamId)
   })
   // After the commit: a failed file delete leaves an orphan file, never a photo row without an entry.
   if (config.photoType) await deleteEntryPhotos(teamId, config.photoType, [id])

@@ -6,9 +6,15 @@ import {
   type MakerContent, type MakerListQuery,
 } from '../../../shared/schemas/wiki'
 import { wikiCheckYears } from './refs'
-import { wikiYearRange, type WikiFieldErrors, type WikiTypeConfig } from './types'
+import { wikiJsonRows, wikiRows, wikiYearRange, type WikiFieldErrors, type WikiTypeConfig } from './types'
 
 type MakerRow = typeof makers.$inferSelect
+
+const MAKER_PAGE_MARKS = 500
+
+function makerExtras(ids: number[], rows: { id: number, title: string, makerId: number | null }[]): Map<number, Record<string, unknown>> {
+  return new Map(ids.map(id => [id, { marks: rows.filter(r => r.makerId === id).map(r => ({ id: r.id, title: r.title })) }]))
+}
 
 export const wikiMakerConfig: WikiTypeConfig<MakerContent, MakerListQuery> = {
   type: 'maker',
@@ -36,17 +42,15 @@ export const wikiMakerConfig: WikiTypeConfig<MakerContent, MakerListQuery> = {
     return { content: next, fieldErrors }
   },
   async extras(db, teamId, contents, detail) {
-    const out = new Map<number, Record<string, unknown>>()
-    if (!detail) return out
+    if (!detail) return new Map<number, Record<string, unknown>>()
     // The maker page lists its marks, so a reader can go from the name to every known base.
     const ids = [...contents.keys()]
     const rows = ids.length
       ? await db.select({ id: marks.id, title: marks.title, makerId: marks.makerId }).from(marks)
           .where(and(eq(marks.teamId, teamId), inArray(marks.makerId, ids), isNull(marks.deletedAt)))
-          .orderBy(asc(marks.title)).limit(500)
+          .orderBy(asc(marks.title)).limit(MAKER_PAGE_MARKS)
       : []
-    for (const id of ids) out.set(id, { marks: rows.filter(r => r.makerId === id).map(r => ({ id: r.id, title: r.title })) })
-    return out
+    return makerExtras(ids, rows)
   },
   async listConditions(_db, _teamId, query) {
     return query.country ? [eq(makers.country, query.country)] : []
@@ -71,4 +75,12 @@ export const wikiMakerConfig: WikiTypeConfig<MakerContent, MakerListQuery> = {
     return n ? `${n} mark${n === 1 ? '' : 's'} (counting deleted ones) still name this maker: change or purge them first.` : null
   },
   photoType: 'maker',
+  // The same marks as extras reads, as one JSON list beside the maker's row (`makers`).
+  detail: {
+    columns: teamId => ({
+      marks: wikiJsonRows(sql`(select json_arrayagg(json_array(m.id, m.title) order by m.title, m.id limit ${sql.raw(String(MAKER_PAGE_MARKS))})
+        from marks m where m.team_id = ${teamId} and m.maker_id = makers.id and m.deleted_at is null)`),
+    }),
+    extras: (id, _content, v) => makerExtras([id], wikiRows<[number, string]>(v.marks).map(([markId, title]) => ({ id: markId, title, makerId: id }))).get(id)!,
+  },
 }

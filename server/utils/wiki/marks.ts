@@ -8,7 +8,7 @@ import {
 import { renderMarkdown } from '../../../shared/markdown'
 import type { DbOrTx } from '../db'
 import { wikiCheckRefs, wikiCheckYears } from './refs'
-import { wikiYearRange, type WikiFieldErrors, type WikiTypeConfig } from './types'
+import { wikiJsonRows, wikiRows, wikiYearRange, type WikiFieldErrors, type WikiTypeConfig } from './types'
 
 type MarkRow = typeof marks.$inferSelect
 
@@ -35,6 +35,53 @@ async function namesById(db: DbOrTx, table: typeof makers | typeof materials | t
   return new Map(rows.map(r => [r.id, r.name]))
 }
 
+interface MarkChildRows {
+  inscriptions: { markId: number, text: string }[]
+  materials: { markId: number, materialId: number }[]
+  categories: { markId: number, categoryId: number }[]
+  pairs: { markLowId: number, markHighId: number, howToTell: string }[]
+}
+
+/** The child content of marks from their child rows (inscriptions in base order). */
+function markChildren(ids: number[], rows: MarkChildRows): Map<number, Partial<MarkContent>> {
+  const out = new Map<number, Partial<MarkContent>>(ids.map(id => [id, { inscriptions: [], materialIds: [], categoryIds: [], lookalikes: [] }]))
+  for (const r of rows.inscriptions) out.get(r.markId)!.inscriptions!.push(r.text)
+  for (const r of rows.materials) out.get(r.markId)!.materialIds!.push(r.materialId)
+  for (const r of rows.categories) out.get(r.markId)!.categoryIds!.push(r.categoryId)
+  // One row per pair, shown from both sides.
+  for (const r of rows.pairs) {
+    out.get(r.markLowId)?.lookalikes!.push({ markId: r.markHighId, howToTell: r.howToTell })
+    out.get(r.markHighId)?.lookalikes!.push({ markId: r.markLowId, howToTell: r.howToTell })
+  }
+  for (const c of out.values()) {
+    c.materialIds!.sort((a, b) => a - b)
+    c.categoryIds!.sort((a, b) => a - b)
+    c.lookalikes!.sort((a, b) => a.markId - b.markId)
+  }
+  return out
+}
+
+interface MarkNames { makerNames: Map<number, string>, materialNames: Map<number, string>, categoryNames: Map<number, string>, markTitles: Map<number, string> }
+
+/** Ids found (a name), from [id, name or null] pairs. */
+const named = (pairs: [number, string | null][]) => new Map(pairs.filter((p): p is [number, string] => p[1] !== null))
+
+function markExtras(contents: Map<number, MarkContent>, names: MarkNames): Map<number, Record<string, unknown>> {
+  const { makerNames, materialNames, categoryNames, markTitles } = names
+  const out = new Map<number, Record<string, unknown>>()
+  for (const [id, c] of contents) {
+    out.set(id, {
+      maker: c.makerId !== null && makerNames.has(c.makerId) ? { id: c.makerId, name: makerNames.get(c.makerId)! } : null,
+      materials: c.materialIds.filter(m => materialNames.has(m)).map(m => ({ id: m, name: materialNames.get(m)! })),
+      categories: c.categoryIds.filter(m => categoryNames.has(m)).map(m => ({ id: m, name: categoryNames.get(m)! })),
+      lookalikes: c.lookalikes.map(l => ({
+        markId: l.markId, title: markTitles.get(l.markId) ?? '', howToTell: l.howToTell, howToTellHtml: renderMarkdown(l.howToTell),
+      })),
+    })
+  }
+  return out
+}
+
 export const wikiMarkConfig: WikiTypeConfig<MarkContent, MarkListQuery> = {
   type: 'mark',
   label: 'mark',
@@ -57,8 +104,7 @@ export const wikiMarkConfig: WikiTypeConfig<MarkContent, MarkListQuery> = {
     yearFrom: r.yearFrom, yearTo: r.yearTo, dateConfidence: r.dateConfidence, notes: r.notes, tags: r.tags,
   }),
   async loadChildren(db, teamId, ids) {
-    const out = new Map<number, Partial<MarkContent>>(ids.map(id => [id, { inscriptions: [], materialIds: [], categoryIds: [], lookalikes: [] }]))
-    if (!ids.length) return out
+    if (!ids.length) return markChildren(ids, { inscriptions: [], materials: [], categories: [], pairs: [] })
     const [inscriptions, mats, cats, pairs] = await Promise.all([
       db.select().from(markInscriptions).where(and(eq(markInscriptions.teamId, teamId), inArray(markInscriptions.markId, ids)))
         .orderBy(asc(markInscriptions.markId), asc(markInscriptions.position)),
@@ -67,20 +113,7 @@ export const wikiMarkConfig: WikiTypeConfig<MarkContent, MarkListQuery> = {
       db.select().from(markLookalikes).where(and(eq(markLookalikes.teamId, teamId),
         or(inArray(markLookalikes.markLowId, ids), inArray(markLookalikes.markHighId, ids)))),
     ])
-    for (const r of inscriptions) out.get(r.markId)!.inscriptions!.push(r.text)
-    for (const r of mats) out.get(r.markId)!.materialIds!.push(r.materialId)
-    for (const r of cats) out.get(r.markId)!.categoryIds!.push(r.categoryId)
-    // One row per pair, shown from both sides.
-    for (const r of pairs) {
-      out.get(r.markLowId)?.lookalikes!.push({ markId: r.markHighId, howToTell: r.howToTell })
-      out.get(r.markHighId)?.lookalikes!.push({ markId: r.markLowId, howToTell: r.howToTell })
-    }
-    for (const c of out.values()) {
-      c.materialIds!.sort((a, b) => a - b)
-      c.categoryIds!.sort((a, b) => a - b)
-      c.lookalikes!.sort((a, b) => a.markId - b.markId)
-    }
-    return out
+    return markChildren(ids, { inscriptions, materials: mats, categories: cats, pairs })
   },
   childRows: (teamId, id, c) => [
     { table: markInscriptions, rows: c.inscriptions.map((text, position) => ({ teamId, markId: id, position, text })) },
@@ -138,18 +171,7 @@ export const wikiMarkConfig: WikiTypeConfig<MarkContent, MarkListQuery> = {
         return new Map(rows.map(r => [r.id, r.title]))
       })(),
     ])
-    const out = new Map<number, Record<string, unknown>>()
-    for (const [id, c] of contents) {
-      out.set(id, {
-        maker: c.makerId !== null && makerNames.has(c.makerId) ? { id: c.makerId, name: makerNames.get(c.makerId)! } : null,
-        materials: c.materialIds.filter(m => materialNames.has(m)).map(m => ({ id: m, name: materialNames.get(m)! })),
-        categories: c.categoryIds.filter(m => categoryNames.has(m)).map(m => ({ id: m, name: categoryNames.get(m)! })),
-        lookalikes: c.lookalikes.map(l => ({
-          markId: l.markId, title: markTitles.get(l.markId) ?? '', howToTell: l.howToTell, howToTellHtml: renderMarkdown(l.howToTell),
-        })),
-      })
-    }
-    return out
+    return markExtras(contents, { makerNames, materialNames, categoryNames, markTitles })
   },
   async listConditions(db, teamId, q) {
     const where: SQL[] = []
@@ -192,4 +214,31 @@ export const wikiMarkConfig: WikiTypeConfig<MarkContent, MarkListQuery> = {
     return out
   },
   photoType: 'mark',
+  // The same rows as loadChildren and extras read, one JSON list each, beside the mark's row (`marks`).
+  detail: {
+    columns: teamId => ({
+      inscriptions: wikiJsonRows(sql`(select json_arrayagg(i.text order by i.position) from mark_inscriptions i
+        where i.team_id = ${teamId} and i.mark_id = marks.id)`),
+      materials: wikiJsonRows(sql`(select json_arrayagg(json_array(x.material_id, n.name)) from mark_materials x
+        left join materials n on n.team_id = x.team_id and n.id = x.material_id where x.team_id = ${teamId} and x.mark_id = marks.id)`),
+      categories: wikiJsonRows(sql`(select json_arrayagg(json_array(x.category_id, n.name)) from mark_categories x
+        left join categories n on n.team_id = x.team_id and n.id = x.category_id where x.team_id = ${teamId} and x.mark_id = marks.id)`),
+      pairs: wikiJsonRows(sql`(select json_arrayagg(json_array(p.mark_low_id, p.mark_high_id, p.how_to_tell, lo.title, hi.title)) from mark_lookalikes p
+        left join marks lo on lo.team_id = p.team_id and lo.id = p.mark_low_id left join marks hi on hi.team_id = p.team_id and hi.id = p.mark_high_id
+        where p.team_id = ${teamId} and (p.mark_low_id = marks.id or p.mark_high_id = marks.id))`),
+      makerName: sql<string | null>`(select n.name from makers n where n.team_id = ${teamId} and n.id = marks.maker_id)`,
+    }),
+    children: (id, v) => markChildren([id], {
+      inscriptions: wikiRows<string>(v.inscriptions).map(text => ({ markId: id, text })),
+      materials: wikiRows<[number, string | null]>(v.materials).map(([materialId]) => ({ markId: id, materialId })),
+      categories: wikiRows<[number, string | null]>(v.categories).map(([categoryId]) => ({ markId: id, categoryId })),
+      pairs: wikiRows<[number, number, string]>(v.pairs).map(([markLowId, markHighId, howToTell]) => ({ markLowId, markHighId, howToTell })),
+    }).get(id)!,
+    extras: (id, content, v) => markExtras(new Map([[id, content]]), {
+      makerNames: new Map(content.makerId !== null && typeof v.makerName === 'string' ? [[content.makerId, v.makerName]] : []),
+      materialNames: named(wikiRows<[number, string | null]>(v.materials)),
+      categoryNames: named(wikiRows<[number, string | null]>(v.categories)),
+      markTitles: named(wikiRows<[number, number, string, string | null, string | null]>(v.pairs).flatMap(([low, high, , lowTitle, highTitle]) => [[low, lowTitle], [high, highTitle]])),
+    }).get(id)!,
+  },
 }

@@ -82,6 +82,26 @@ export interface WikiTypeConfig<C extends object = any, Q extends object = any> 
   /** Why a purge must wait (other entries still point at this one), or null. */
   purgeBlocker?: (db: DbOrTx, teamId: number, id: number) => Promise<string | null>
   photoType: 'mark' | 'maker' | null
+  /**
+   * An entry's page in one statement (detail.ts): subqueries in plain SQL, correlated with the entry's row by
+   * its table name, whose values give what loadChildren and extras would give. Without them those run as queries.
+   */
+  detail?: {
+    columns: (teamId: number) => Record<string, SQL>
+    children?: (id: number, values: Record<string, unknown>) => Partial<C>
+    extras?: (id: number, content: C, values: Record<string, unknown>) => Record<string, unknown>
+  }
+}
+
+/** A JSON_ARRAYAGG subquery as a select field: its rows (see wikiRows; no rows: MariaDB answers NULL). */
+export function wikiJsonRows<T = unknown[]>(query: SQL): SQL<T[]> {
+  return query.mapWith(value => wikiRows<T>(value)) as SQL<T[]>
+}
+
+/** The rows of a JSON_ARRAYAGG value as read, through drizzle's mapWith or not (NULL: no rows). */
+export function wikiRows<T = unknown[]>(value: unknown): T[] {
+  const rows = typeof value === 'string' ? JSON.parse(value) as unknown : value
+  return Array.isArray(rows) ? rows as T[] : []
 }
 
 export function wikiYearRange(from: number | null, to: number | null, fromApprox = false, toApprox = false): string {

@@ -11,19 +11,13 @@ import { startAppServer } from '../lib/app-server'
 import { applyMigrations } from '../lib/migrate'
 import { freePort } from '../lib/ports'
 import { startLocalServices } from '../lib/services'
+import { seededRandom } from '../lib/random'
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000)
 const BUDGET_MS = 60_000
 
 // A seeded generator, so every run imports the same file.
-let seed = 20260801
-function random(): number {
-  seed = (seed + 0x6D2B79F5) | 0
-  let t = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-  t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-}
-const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!
+const { random, pick } = seededRandom(20260801)
 const int = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo + 1))
 const LOOKS = ['Green matte', 'Blue drip', 'Floral', 'Gold-trimmed', 'Speckled', 'Pastel', 'Hobnail', 'Amber', 'Ribbed', 'Scalloped']
 const NOUNS = ['vase', 'planter', 'mug', 'bowl', 'figurine', 'candy dish', 'platter', 'canister', 'candle holders', 'wall plaque']

@@ -24,6 +24,7 @@ import { startAppServer, type AppServer } from '../lib/app-server'
 import { applyMigrations } from '../lib/migrate'
 import { freePort } from '../lib/ports'
 import { startLocalServices } from '../lib/services'
+import { seededRandom } from '../lib/random'
 
 const args = process.argv.slice(2)
 const option = (name: string, fallback: number) => {
@@ -39,14 +40,7 @@ const PASSWORD = 'kiln-shelf-and-saggar-2026'
 const HOT_MARKS = 12
 
 // A seeded generator, so every run asks the same things in the same order.
-let seed = 20260901
-function random(): number {
-  seed = (seed + 0x6D2B79F5) | 0
-  let t = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-  t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-}
-const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!
+const { random, pick } = seededRandom(20260901)
 
 type Kind = 'search' | 'read' | 'edit read' | 'edit' | 'sale'
 interface Tally { ok: number, conflicts: number, errors: Map<number, number>, times: number[] }

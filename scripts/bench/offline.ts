@@ -19,6 +19,7 @@ import { startAppServer } from '../lib/app-server'
 import { applyMigrations } from '../lib/migrate'
 import { freePort } from '../lib/ports'
 import { startLocalServices } from '../lib/services'
+import { seededRandom } from '../lib/random'
 
 const MARKS = Number(process.env.BENCH_MARKS ?? 5000)
 const MAKERS = 600
@@ -27,14 +28,7 @@ const THROTTLE = Number(process.env.BENCH_CPU_THROTTLE ?? 4)
 const BUDGET_BYTES = 5 * 1024 * 1024
 const BUDGET_P95_MS = 50
 
-let seed = 20260815
-function random(): number {
-  seed = (seed + 0x6D2B79F5) | 0
-  let t = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-  t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-}
-const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!
+const { random, pick } = seededRandom(20260815)
 const SYLLABLES = ['var', 'hol', 'quen', 'del', 'bram', 'ston', 'fel', 'wick', 'mar', 'tor', 'lin', 'dra', 'cor', 'win', 'ash', 'by',
   'ford', 'ham', 'ley', 'ton', 'mere', 'wald', 'rid', 'gan', 'pel', 'tis', 'nor', 'vel', 'cot', 'brim', 'sel', 'kar', 'dun', 'mor']
 const KINDS = ['POTTERY CO', 'GLASS WORKS', 'CHINA CO', 'PORCELAIN', 'WARE', 'CERAMICS', 'ART POTTERY', 'STONEWARE CO', '& SONS', 'BROS']

@@ -20,6 +20,7 @@ import { startAppServer } from '../lib/app-server'
 import { applyMigrations } from '../lib/migrate'
 import { freePort } from '../lib/ports'
 import { startLocalServices } from '../lib/services'
+import { seededRandom } from '../lib/random'
 
 const MARKS = Number(process.env.BENCH_MARKS ?? 50_000)
 const MAKERS = Number(process.env.BENCH_MAKERS ?? 10_000)
@@ -31,14 +32,7 @@ const ONLY_ENGINES = process.env.BENCH_ENGINES?.split(',').map(e => e.trim()).fi
 const SHOW_MISSES = Number(process.env.BENCH_SHOW_MISSES ?? 3)
 
 // ---- Invented words, from a seeded generator so every run has the same corpus.
-let seed = 20260701
-function random(): number {
-  seed = (seed + 0x6D2B79F5) | 0
-  let t = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-  t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-}
-const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!
+const { random, pick } = seededRandom(20260701)
 const SYLLABLES = ['var', 'hol', 'quen', 'del', 'bram', 'ston', 'fel', 'wick', 'mar', 'tor', 'lin', 'dra', 'cor', 'win', 'ash', 'by',
   'ford', 'ham', 'ley', 'ton', 'mere', 'wald', 'rid', 'gan', 'pel', 'tis', 'nor', 'vel', 'cot', 'brim', 'sel', 'kar', 'dun', 'mor',
   'zan', 'es', 'lo', 'wen', 'har', 'rin', 'tam', 'bel', 'ov', 'ick', 'sar', 'pen', 'gre', 'ul']

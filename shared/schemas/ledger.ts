@@ -174,12 +174,13 @@ const statusList = z.string().max(200).optional().transform((raw, ctx) => {
   }
   return parts as (typeof ITEM_STATUSES[number])[]
 })
-const queryFlag = z.enum(['1', '0', 'true', 'false'], { message: 'Use 1 or 0.' }).optional().transform(v => v === '1' || v === 'true')
+/** A yes/no query parameter: 1 or true, 0 or false; left out, no. */
+const flag = z.enum(['1', '0', 'true', 'false'], { message: 'Use 1 or 0.' }).optional().transform(v => v === '1' || v === 'true')
 export const itemFilterQuery = z.object({
   status: statusList,
   categoryId: queryId,
   // With categoryId: the items filed in its subcategories too, as the category's own figures count them.
-  subcategories: queryFlag,
+  subcategories: flag,
   markId: queryId,
   makerId: queryId,
   materialId: queryId,
@@ -257,7 +258,6 @@ export const importMappingSchema = z.record(
   return new Set(used).size === used.length
 }, 'Map each field from one column only.')
 
-const flag = z.enum(['1', '0', 'true', 'false']).optional().transform(v => v === '1' || v === 'true')
 export const importQuery = z.object({
   dryRun: flag,
   onlyValid: flag,

@@ -1,34 +1,14 @@
 // The S3 storage driver against the fake S3 that npm test starts on loopback (scripts/lib/fake-s3.ts).
 import { randomBytes } from 'node:crypto'
-import type { Readable } from 'node:stream'
 import sharp from 'sharp'
 import { describe, expect, it } from 'vitest'
-import { createStorageDriver, type StoredObject } from '../../server/utils/storage'
+import { createStorageDriver } from '../../server/utils/storage'
 import { processPhotoImage } from '../../server/utils/images'
 import { jpegWithGps } from '../support/photos'
-
-function s3Env() {
-  const env = process.env
-  const endpoint = env.TALLYMARK_TEST_S3_ENDPOINT
-  if (!endpoint) throw new Error('TALLYMARK_TEST_S3_ENDPOINT is not set: run this through npm test, which starts the fake S3.')
-  return {
-    endpoint,
-    region: 'us-east-1',
-    bucket: env.TALLYMARK_TEST_S3_BUCKET ?? '',
-    accessKeyId: env.TALLYMARK_TEST_S3_ACCESS_KEY_ID ?? '',
-    secretAccessKey: env.TALLYMARK_TEST_S3_SECRET_ACCESS_KEY ?? '',
-  }
-}
-
-async function bytesOf(object: StoredObject): Promise<Buffer> {
-  if (Buffer.isBuffer(object.body)) return object.body
-  const chunks: Buffer[] = []
-  for await (const chunk of object.body as Readable) chunks.push(Buffer.from(chunk as Uint8Array))
-  return Buffer.concat(chunks)
-}
+import { storedBytes, testS3Config } from '../support/s3'
 
 describe('S3 storage driver', () => {
-  const storage = createStorageDriver({ storageDriver: 's3', storageDir: '/nonexistent', s3: s3Env() })
+  const storage = createStorageDriver({ storageDriver: 's3', storageDir: '/nonexistent', s3: testS3Config() })
   const folder = `teams/1/photos/${randomBytes(16).toString('hex')}`
 
   it('is the S3 driver when STORAGE_DRIVER says s3', () => {
@@ -43,7 +23,7 @@ describe('S3 storage driver', () => {
     expect(got).not.toBeNull()
     expect(got!.contentType).toBe('image/webp')
     expect(got!.size).toBe(bytes.length)
-    expect((await bytesOf(got!)).equals(bytes)).toBe(true)
+    expect((await storedBytes(got!)).equals(bytes)).toBe(true)
     await storage.delete(key)
     expect(await storage.get(key)).toBeNull()
   })
@@ -52,7 +32,7 @@ describe('S3 storage driver', () => {
     const { display } = await processPhotoImage(await jpegWithGps(800, 600))
     const key = `${folder}/display.webp`
     await storage.put(key, display.bytes, display.contentType)
-    const back = await bytesOf((await storage.get(key))!)
+    const back = await storedBytes((await storage.get(key))!)
     expect(back.equals(display.bytes)).toBe(true)
     expect(await sharp(back).metadata()).toMatchObject({ format: 'webp', width: 800, height: 600 })
     await storage.delete(key)
@@ -71,7 +51,7 @@ describe('S3 storage driver', () => {
   })
 
   it('reports a missing bucket as an error, not as a missing object', async () => {
-    const misconfigured = createStorageDriver({ storageDriver: 's3', storageDir: '/nonexistent', s3: { ...s3Env(), bucket: 'no-such-bucket-here' } })
+    const misconfigured = createStorageDriver({ storageDriver: 's3', storageDir: '/nonexistent', s3: { ...testS3Config(), bucket: 'no-such-bucket-here' } })
     await expect(misconfigured.get(`${folder}/thumb.webp`)).rejects.toThrow(/bucket/i)
     await expect(misconfigured.put(`${folder}/thumb.webp`, Buffer.from('x'), 'image/webp')).rejects.toThrow(/bucket/i)
   })

@@ -6,8 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import sharp from 'sharp'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { join } from 'node:path'
-import { ARTIFACTS, DESKTOP, PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
-import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { ARTIFACTS, DESKTOP, PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
+import { newOwner, uniqueTeamName, type Person } from '../support/api'
 import { closeTestDb, query } from '../support/db'
 
 let browser: Browser
@@ -29,13 +29,7 @@ async function get(path: string): Promise<any> {
 
 /** A browser context signed in as the owner (the API session's cookie, handed over). */
 async function signedIn(viewport: { width: number, height: number }): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  const cookies = owner.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  })
-  await context.addCookies(cookies)
-  return context
+  return await signedInContext(browser, owner, viewport)
 }
 
 async function open(page: Page, path: string) {

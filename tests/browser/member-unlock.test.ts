@@ -2,8 +2,8 @@
 // Unlock button, and pressing it clears the lock (the API's answer and the list agree). Phone and desktop.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext } from 'playwright-core'
-import { DESKTOP, PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
-import { baseUrl, newMember, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { DESKTOP, PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
+import { newMember, newOwner, uniqueTeamName, type Person } from '../support/api'
 import { closeTestDb, exec, query } from '../support/db'
 
 let browser: Browser
@@ -14,12 +14,7 @@ afterAll(async () => {
 })
 
 async function signedIn(person: Person, viewport: { width: number, height: number }): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  await context.addCookies(person.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  }))
-  return context
+  return await signedInContext(browser, person, viewport)
 }
 
 describe.each([['phone', PHONE], ['desktop', DESKTOP]] as const)('unlocking a member on a %s', (size, viewport) => {

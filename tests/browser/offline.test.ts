@@ -12,7 +12,7 @@ import { join } from 'node:path'
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
 import sharp from 'sharp'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
-import { PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
+import { PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
 import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
 import { closeTestDb, query } from '../support/db'
 import { renderInscription } from '../support/ocr'
@@ -29,13 +29,7 @@ async function create(path: string, body: Record<string, unknown>) {
 }
 
 async function signedIn(viewport = PHONE): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  const cookies = owner.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  })
-  await context.addCookies(cookies)
-  return context
+  return await signedInContext(browser, owner, viewport)
 }
 
 /** Waits until the service worker is active and controls the page. */

@@ -5,8 +5,8 @@
 // sell-through = sold / available × 100, trade-facts §4; medians Hyndman & Fan type 7). Screenshots in tests/artifacts/.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
-import { DESKTOP, PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
-import { baseUrl, newMember, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { DESKTOP, PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
+import { newMember, newOwner, uniqueTeamName, type Person } from '../support/api'
 
 const POLL = { timeout: 10_000 }
 let browser: Browser
@@ -22,12 +22,7 @@ async function create(path: string, body: Record<string, unknown>) {
 }
 
 async function signedIn(person: Person, viewport: { width: number, height: number }): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  await context.addCookies(person.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  }))
-  return context
+  return await signedInContext(browser, person, viewport)
 }
 
 async function expectNoSideScroll(page: Page) {

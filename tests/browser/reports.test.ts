@@ -3,8 +3,8 @@
 // the buy check gives its verdict with count, spread, low-data warning and cautions. Screenshots in tests/artifacts/.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
-import { DESKTOP, PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
-import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { DESKTOP, PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
+import { newOwner, uniqueTeamName, type Person } from '../support/api'
 
 const POLL = { timeout: 10_000 }
 let browser: Browser
@@ -19,12 +19,7 @@ async function create(path: string, body: Record<string, unknown>) {
 }
 
 async function signedIn(viewport: { width: number, height: number }): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  await context.addCookies(owner.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  }))
-  return context
+  return await signedInContext(browser, owner, viewport)
 }
 
 /** The page is no wider than the screen (tables scroll inside their own box). */

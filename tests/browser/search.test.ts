@@ -4,8 +4,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import sharp from 'sharp'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
-import { DESKTOP, PHONE, hydrated, launchBrowser, newContext, shot, watchPage } from '../support/browser'
-import { baseUrl, newOwner, uniqueTeamName, type Person } from '../support/api'
+import { DESKTOP, PHONE, hydrated, launchBrowser, shot, signedInContext, watchPage } from '../support/browser'
+import { newOwner, uniqueTeamName, type Person } from '../support/api'
 import { photoForm } from '../support/photos'
 
 // Answers can take a while on a busy machine: wait up to 10 s for what a person would see.
@@ -23,13 +23,7 @@ async function create(path: string, body: Record<string, unknown>) {
 
 /** A browser context signed in as the owner (the API test's session cookie, handed over). */
 async function signedIn(viewport: { width: number, height: number }): Promise<BrowserContext> {
-  const context = await newContext(browser, viewport)
-  const cookies = owner.cookieHeader().split('; ').filter(Boolean).map((pair) => {
-    const eq = pair.indexOf('=')
-    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
-  })
-  await context.addCookies(cookies)
-  return context
+  return await signedInContext(browser, owner, viewport)
 }
 
 async function typeSlowly(page: Page, text: string) {

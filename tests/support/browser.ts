@@ -3,6 +3,7 @@ import { chromium, type Browser, type BrowserContext, type Page } from 'playwrig
 import { mkdirSync, mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
+import { baseUrl } from './api'
 
 export const PHONE = { width: 360, height: 780 }
 export const DESKTOP = { width: 1280, height: 900 }
@@ -22,6 +23,16 @@ export async function launchBrowser(): Promise<Browser> {
 export async function newContext(browser: Browser, viewport = DESKTOP): Promise<BrowserContext> {
   const context = await browser.newContext({ viewport, baseURL: process.env.TALLYMARK_TEST_URL, locale: 'en-US', timezoneId: 'America/Chicago' })
   context.setDefaultTimeout(15_000)
+  return context
+}
+
+/** A context signed in as `person`: their session cookie from the API, for the app's address. */
+export async function signedInContext(browser: Browser, person: { cookieHeader(): string }, viewport = DESKTOP): Promise<BrowserContext> {
+  const context = await newContext(browser, viewport)
+  await context.addCookies(person.cookieHeader().split('; ').filter(Boolean).map((pair) => {
+    const eq = pair.indexOf('=')
+    return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: baseUrl }
+  }))
   return context
 }
 

@@ -15,6 +15,7 @@ import { searchTrackItemSale } from '../search/popularity'
 import type { itemCreateSchema, itemFilterQuery, itemListQuery, itemPatchSchema, itemSaleSchema, itemStatusSchema } from '../../../shared/schemas/ledger'
 import type { LedgerItem, LedgerItemDetail, LedgerItemFields, LedgerItemTotals, LedgerStatusEvent } from '../../../shared/types/ledger'
 import { listEntryPhotos } from '../photos'
+import { categorySubtreeCte } from './category-subtree'
 
 type ItemRow = typeof tables.items.$inferSelect
 type ItemInsert = typeof tables.items.$inferInsert
@@ -73,26 +74,16 @@ export async function itemGet(access: TeamAccess, id: number): Promise<LedgerIte
   return { ...item!, photos: photos.get(id) ?? [] }
 }
 
-/** Longest category chain followed, against a loop that a concurrent move could leave for a moment. */
-const MAX_CATEGORY_DEPTH = 64
-
-/** A category's id and those of every category under it (deleted ones too: their items are still filed there). */
-function categorySubtreeIds(teamId: number, categoryId: number): SQL {
-  const c = tables.categories
-  return sql`WITH RECURSIVE subtree (id, depth) AS (
-      SELECT ${c.id}, 0 FROM ${c} WHERE ${c.teamId} = ${teamId} AND ${c.id} = ${categoryId}
-      UNION ALL
-      SELECT child.id, subtree.depth + 1 FROM ${c} child JOIN subtree ON child.parent_id = subtree.id
-      WHERE child.team_id = ${teamId} AND subtree.depth < ${MAX_CATEGORY_DEPTH})
-    SELECT id FROM subtree`
-}
-
 /** WHERE conditions of the item filters: shared by the list, its totals and the CSV export. */
 export function itemFilterConditions(teamId: number, f: z.infer<typeof itemFilterQuery>): SQL[] {
   const i = tables.items
   const where: SQL[] = [eq(i.teamId, teamId)]
   if (f.status?.length) where.push(inArray(i.status, f.status))
-  if (f.categoryId) where.push(f.subcategories ? sql`${i.categoryId} IN (${categorySubtreeIds(teamId, f.categoryId)})` : eq(i.categoryId, f.categoryId))
+  if (f.categoryId) {
+    where.push(f.subcategories
+      ? sql`${i.categoryId} IN (WITH RECURSIVE ${categorySubtreeCte(teamId, [f.categoryId])} SELECT id FROM cat_filter)`
+      : eq(i.categoryId, f.categoryId))
+  }
   if (f.markId) where.push(eq(i.markId, f.markId))
   if (f.makerId) where.push(eq(i.makerId, f.makerId))
   if (f.materialId) where.push(eq(i.materialId, f.materialId))

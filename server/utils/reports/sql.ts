@@ -11,6 +11,7 @@
 // interpolation, but as a DOUBLE.
 import { sql, type SQL } from 'drizzle-orm'
 import type { ReportDimension } from '../../../shared/schemas/reports'
+import { categorySubtreeCte, MAX_CATEGORY_DEPTH } from '../ledger/category-subtree'
 
 /** Statuses that carry a sale still standing. A returned item's sale was given back. */
 const SOLD = sql.raw(`('sold','shipped')`)
@@ -18,8 +19,6 @@ const SOLD = sql.raw(`('sold','shipped')`)
 const OPEN = sql.raw(`('in_stock','listed')`)
 /** End states without a sale: their day is only in the status history, so they leave the stock base. */
 const GONE = sql.raw(`('donated','written_off','kept')`)
-/** Longest category chain followed, against a loop that a concurrent move could leave for a moment. */
-const MAX_CATEGORY_DEPTH = 64
 
 export interface ReportSqlFilters {
   from?: string | null
@@ -52,11 +51,7 @@ function withClause(input: ReportSqlInput, grouped: boolean): SQL {
   const { teamId, dimension, filters } = input
   const ctes: SQL[] = []
   if (filters.categoryId) {
-    ctes.push(sql`cat_filter (id, depth) AS (
-      SELECT c.id, 0 FROM categories c WHERE c.team_id = ${teamId} AND c.id = ${filters.categoryId}
-      UNION ALL
-      SELECT c.id, f.depth + 1 FROM categories c JOIN cat_filter f ON c.parent_id = f.id
-      WHERE c.team_id = ${teamId} AND f.depth < ${MAX_CATEGORY_DEPTH})`)
+    ctes.push(categorySubtreeCte(teamId, [filters.categoryId]))
   }
   if (dimension === 'category' && (grouped || filters.parentId)) {
     // Each category mapped to the row it rolls up into: its top-level ancestor, or the requested parent's
@@ -323,12 +318,7 @@ export const BUY_CHECK_LATEST_SALES = 500
 const BOXED = sql.raw('(i.box_length_mm IS NOT NULL AND i.box_width_mm IS NOT NULL AND i.box_height_mm IS NOT NULL)')
 
 function categorySubtree(teamId: number, categoryIds: number[]): SQL {
-  const ids = sql.join(categoryIds.map(id => sql`${id}`), sql`, `)
-  return sql`WITH RECURSIVE cat_filter (id, depth) AS (
-      SELECT c.id, 0 FROM categories c WHERE c.team_id = ${teamId} AND c.id IN (${ids})
-      UNION ALL
-      SELECT c.id, f.depth + 1 FROM categories c JOIN cat_filter f ON c.parent_id = f.id
-      WHERE c.team_id = ${teamId} AND f.depth < ${MAX_CATEGORY_DEPTH}) `
+  return sql`WITH RECURSIVE ${categorySubtreeCte(teamId, categoryIds)} `
 }
 
 function comparableWhere(teamId: number, level: BuyCheckLevel, id: number | null): SQL {

@@ -16,7 +16,7 @@ import type {
 import type { ItemStatus } from '../../../shared/ledger/item-rules'
 import {
   buyCheckLevelCountsSql, buyCheckStatsSql, reportCountsSql, reportFirstMonthSql, reportLabelsSql, reportMonthCountsSql,
-  reportRecentItemsSql, reportSoldStatsSql, type BuyCheckLevel, type ReportMonthRange, type ReportSqlFilters, type ReportSqlInput,
+  reportGroupSoldStatsSql, reportRecentItemsSql, reportSoldTotalsSql, type BuyCheckLevel, type ReportMonthRange, type ReportSqlFilters, type ReportSqlInput,
 } from './sql'
 
 export type ReportExec = (query: SQL) => Promise<Record<string, unknown>[]>
@@ -138,8 +138,8 @@ export async function reportCompute(exec: ReportExec, input: ReportComputeInput)
   // The grouped counts carry their totals (WITH ROLLUP); the month rows carry them too (see monthTotals).
   const [grouped, stats, totalStats] = await Promise.all([
     dimension === 'month' ? (range ? exec(reportMonthCountsSql(sqlInput, range)) : Promise.resolve([])) : exec(reportCountsSql(sqlInput, true)),
-    exec(reportSoldStatsSql(sqlInput, true)),
-    exec(reportSoldStatsSql(sqlInput, false)),
+    exec(reportGroupSoldStatsSql(sqlInput)),
+    exec(reportSoldTotalsSql(sqlInput)),
   ])
   const { groups: counts, totals: rollupTotals } = dimension === 'month' ? { groups: grouped, totals: monthTotals(grouped) } : splitRollup(grouped)
   const statsByGroup = new Map(stats.map(r => [groupKey(r.g), r as unknown as ReportStatsRow]))
@@ -201,7 +201,7 @@ export async function reportOutcomesCompute(exec: ReportExec, input: ReportOutco
   }
   const [counts, stats, recent] = await Promise.all([
     exec(reportCountsSql(sqlInput, false)),
-    exec(reportSoldStatsSql(sqlInput, false)),
+    exec(reportSoldTotalsSql(sqlInput)),
     exec(reportRecentItemsSql(sqlInput, 10)),
   ])
   const day = (v: unknown) => v === null || v === undefined ? null : v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10)
@@ -241,7 +241,7 @@ export async function reportSourcingCompute(exec: ReportExec, input: ReportSourc
   const ageDay = minDay(filters.to ?? input.today, input.today)
   const [marks, makers] = await Promise.all((['mark', 'maker'] as const).map(async (type) => {
     const sqlInput: ReportSqlInput = { teamId: input.teamId, dimension: type, filters, ageDay }
-    const [counts, stats] = await Promise.all([exec(reportCountsSql(sqlInput, true)), exec(reportSoldStatsSql(sqlInput, true))])
+    const [counts, stats] = await Promise.all([exec(reportCountsSql(sqlInput, true)), exec(reportGroupSoldStatsSql(sqlInput))])
     const byGroup = new Map(stats.map(r => [groupKey(r.g), r as unknown as ReportStatsRow]))
     const figures = splitRollup(counts).groups.filter(r => Number(r.g) > 0)
       .map(r => ({ id: Number(r.g), figures: reportFigures(r as unknown as ReportCountsRow, byGroup.get(groupKey(r.g))) }))

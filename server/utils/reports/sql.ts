@@ -3,12 +3,13 @@
 // so the benchmark (scripts/bench/reports.ts) runs exactly these statements against the database directly.
 //
 // Quartiles are Hyndman & Fan type 7 (R's default), the method of shared/ledger/stats.ts quartilesCents,
-// computed exactly with window functions: within each group the sale prices are numbered by ROW_NUMBER() in
-// ascending order and counted by COUNT(*) OVER; for quartile j of n values the quarter step s = (n − 1)·j
-// gives lo = s DIV 4 (0-based) and k = s MOD 4, and the statement sums x[lo]·(4 − k) + x[lo + 1]·k. That is
-// four times the quartile, a whole number, which the server rounds half-up to the cent with the ledger's
-// roundHalfUp (so the figures equal quartilesCents of the same prices). PERCENTILE_CONT would give the same
-// interpolation, but as a DOUBLE.
+// computed exactly: for quartile j of n sorted values x[1..n] the quarter step s = (n − 1)·j gives lo = s DIV 4
+// and k = s MOD 4, and a statement returns x[lo + 1]·(4 − k) + x[lo + 2]·k. That is four times the quartile, a
+// whole number, which the server rounds half-up to the cent with the ledger's roundHalfUp (so the figures equal
+// quartilesCents of the same prices). PERCENTILE_CONT gives the same interpolation, but as a DOUBLE and slower.
+// x[r] is reached three ways, each where it measured cheapest: within report groups, from sorted lists
+// (GROUP_CONCAT … ORDER BY); over all of a report's sales, from a histogram with running counts; over the buy
+// check's few hundred sales, from ROW_NUMBER() windows.
 import { sql, type SQL } from 'drizzle-orm'
 import type { ReportDimension } from '../../../shared/schemas/reports'
 import { categorySubtreeCte, MAX_CATEGORY_DEPTH } from '../ledger/category-subtree'
@@ -185,7 +186,7 @@ export function reportCountsSql(input: ReportSqlInput, grouped = true): SQL {
 }
 
 /**
- * x[lo]·(4 − k) + x[lo + 1]·k for quartile j (see the header), over a ROW_NUMBER column and its count; `guard`
+ * x[lo + 1]·(4 − k) + x[lo + 2]·k for quartile j (see the header), over a ROW_NUMBER column and its count; `guard`
  * keeps only the rows of the partition the ranks were taken in (values that are present).
  */
 function quartileTimesFour(value: string, rank: string, count: string, j: 1 | 2 | 3, guard = 'TRUE'): SQL {
@@ -193,35 +194,70 @@ function quartileTimesFour(value: string, rank: string, count: string, j: 1 | 2 
     + ` WHEN ${rank} = ((${count} - 1) * ${j}) DIV 4 + 2 THEN ${value} * MOD((${count} - 1) * ${j}, 4) ELSE 0 END)`)
 }
 
-/** Rows a quartile reads (ranks lo + 1 and lo + 2), so the grouping after the windows handles only those. */
-function quartilePicks(rank: string, count: string, quartiles: (1 | 2 | 3)[]): SQL {
-  return sql.raw(`(${quartiles.map(j => `${rank} IN (((${count} - 1) * ${j}) DIV 4 + 1, ((${count} - 1) * ${j}) DIV 4 + 2)`).join(' OR ')})`)
+/** The r-th (1-based) of a comma-separated list of whole numbers. */
+const nthOfList = (list: string, rank: string) => `CAST(SUBSTRING_INDEX(SUBSTRING_INDEX(${list}, ',', ${rank}), ',', -1) AS SIGNED)`
+
+/** Four times quartile j of a sorted list of n whole numbers (see the header). */
+function listQuartileTimesFour(list: string, n: string, j: 1 | 2 | 3): SQL {
+  const lo = `((${n} - 1) * ${j}) DIV 4`
+  const k = `MOD((${n} - 1) * ${j}, 4)`
+  return sql.raw(`${nthOfList(list, `${lo} + 1`)} * (4 - ${k}) + IF(${k} > 0, ${nthOfList(list, `${lo} + 2`)}, 0) * ${k}`)
 }
 
 /**
- * Sale-price quartiles and the median days to sell of the items sold in the period, per group (or of all of
- * them), each as four times the figure (see the header).
+ * Room for every list of sale prices of one group (a price is at most 11 characters and a comma): sorted lists
+ * that stopped at the session's group_concat_max_len would give wrong quartiles without an error.
  */
-export function reportSoldStatsSql(input: ReportSqlInput, grouped = true): SQL {
+const LIST_ROOM = sql.raw('SET STATEMENT group_concat_max_len = 1073741824 FOR ')
+
+/**
+ * Sale-price quartiles and the median days to sell of the items sold in the period, per group, each as four times
+ * the figure (see the header). Each group's prices and days are gathered sorted by GROUP_CONCAT(… ORDER BY …), in
+ * one pass over the sold items, and the ranks a quartile needs are read from those lists: sorting many small
+ * lists costs MariaDB much less than numbering every sale with window functions.
+ */
+export function reportGroupSoldStatsSql(input: ReportSqlInput): SQL {
   const { fromDay, toDay } = periodBounds(input.filters)
-  const g = !grouped
-    ? sql.raw('0')
-    : input.dimension === 'month' ? sql.raw(`DATE_FORMAT(i.sold_on, '%Y-%m')`) : groupExpression(input.dimension)
+  const g = input.dimension === 'month' ? sql.raw(`DATE_FORMAT(i.sold_on, '%Y-%m')`) : groupExpression(input.dimension)
   const sold = [sql`i.status IN ${SOLD}`, inPeriod(sql.raw('i.sold_on'), fromDay, toDay)]
-  const groupedForJoin = grouped && input.dimension !== 'month'
-  return sql`${withClause(input, groupedForJoin)}SELECT g, MAX(n) AS n,
-    ${quartileTimesFour('price', 'rp', 'n', 1)} AS q1x4,
-    ${quartileTimesFour('price', 'rp', 'n', 2)} AS q2x4,
-    ${quartileTimesFour('price', 'rp', 'n', 3)} AS q3x4,
-    ${quartileTimesFour('days', 'rd', 'n', 2)} AS d2x4
-    FROM (
-      SELECT g, price, days,
-        ROW_NUMBER() OVER (PARTITION BY g ORDER BY price) AS rp,
-        ROW_NUMBER() OVER (PARTITION BY g ORDER BY days) AS rd,
-        COUNT(*) OVER (PARTITION BY g) AS n
-      FROM (SELECT ${g} AS g, i.sale_price_cents AS price, DATEDIFF(i.sold_on, i.acquired_on) AS days
-        ${fromWhere(input, groupedForJoin, sold)}) AS x
-    ) AS s WHERE ${quartilePicks('rp', 'n', [1, 2, 3])} OR ${quartilePicks('rd', 'n', [2])} GROUP BY g`
+  const joinsCategories = input.dimension !== 'month'
+  return sql`${LIST_ROOM}${withClause(input, joinsCategories)}SELECT g, n,
+    ${listQuartileTimesFour('prices', 'n', 1)} AS q1x4,
+    ${listQuartileTimesFour('prices', 'n', 2)} AS q2x4,
+    ${listQuartileTimesFour('prices', 'n', 3)} AS q3x4,
+    ${listQuartileTimesFour('days', 'n', 2)} AS d2x4
+    FROM (SELECT ${g} AS g, COUNT(*) AS n,
+        GROUP_CONCAT(i.sale_price_cents ORDER BY i.sale_price_cents) AS prices,
+        GROUP_CONCAT(DATEDIFF(i.sold_on, i.acquired_on) ORDER BY DATEDIFF(i.sold_on, i.acquired_on)) AS days
+      ${fromWhere(input, joinsCategories, sold)} GROUP BY g) AS lists`
+}
+
+/**
+ * The quartiles of one value over all the rows of a histogram `h` (columns v, c: a value and how many items have
+ * it), each as four times the figure: x[r], the r-th smallest value, is the first value whose running count
+ * reaches r. Sale prices repeat (whole and half dollars, the same tag again), so the histogram is far shorter than
+ * the list of sales and numbering it is cheaper than numbering every sale.
+ */
+function histogramQuartilesSql(histogram: SQL, quartiles: (1 | 2 | 3)[]): SQL {
+  const pick = (j: number, offset: 1 | 2) => `MIN(IF(cum >= ((n - 1) * ${j}) DIV 4 + ${offset}, v, NULL))`
+  // x[lo + 2] is read only when the step falls between two ranks (k > 0), and then it exists.
+  const timesFour = (j: number) => sql.raw(`${pick(j, 1)} * (4 - MOD((MAX(n) - 1) * ${j}, 4)) + COALESCE(${pick(j, 2)}, 0) * MOD((MAX(n) - 1) * ${j}, 4) AS x${j}`)
+  return sql`SELECT MAX(n) AS n, ${sql.join(quartiles.map(timesFour), sql`, `)} FROM (
+      SELECT v, SUM(c) OVER (ORDER BY v ROWS UNBOUNDED PRECEDING) AS cum, SUM(c) OVER () AS n FROM (${histogram}) AS h
+    ) AS w`
+}
+
+/**
+ * The sale-price quartiles and the median days to sell of all the items sold in the period (the totals row), each
+ * as four times the figure, from a histogram of each (see histogramQuartilesSql); no row when nothing sold.
+ */
+export function reportSoldTotalsSql(input: ReportSqlInput): SQL {
+  const { fromDay, toDay } = periodBounds(input.filters)
+  const from = fromWhere(input, false, [sql`i.status IN ${SOLD}`, inPeriod(sql.raw('i.sold_on'), fromDay, toDay)])
+  const prices = histogramQuartilesSql(sql`SELECT i.sale_price_cents AS v, COUNT(*) AS c ${from} GROUP BY v`, [1, 2, 3])
+  const days = histogramQuartilesSql(sql`SELECT DATEDIFF(i.sold_on, i.acquired_on) AS v, COUNT(*) AS c ${from} GROUP BY v`, [2])
+  return sql`${withClause(input, false)}SELECT 0 AS g, p.n AS n, p.x1 AS q1x4, p.x2 AS q2x4, p.x3 AS q3x4, d.x2 AS d2x4
+    FROM (${prices}) AS p CROSS JOIN (${days}) AS d WHERE p.n > 0`
 }
 
 /**

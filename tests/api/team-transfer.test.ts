@@ -90,8 +90,13 @@ describe('team export', () => {
 describe('team import', () => {
   it('fills an empty team so that its export equals the source\'s, photos byte for byte, and search finds its marks', async () => {
     const target = await emptyTeamOfOwner('Transfer Target', true)
+    // A report read while the team is empty is not answered again once the import has filled it.
+    const emptyReport = await source.owner.get(`/api/teams/${target.slug}/reports/category`)
+    expect(emptyReport.body.totals.bought).toBe(0)
     const res = await importInto(source.owner, target.slug, zipBytes)
     expect(res.status, JSON.stringify(res.body)).toBe(200)
+    const filledReport = await source.owner.get(`/api/teams/${target.slug}/reports/category`)
+    expect(filledReport.body.totals.bought).toBe(doc.items.length)
     expect(res.body.imported).toMatchObject({ marks: doc.marks.length, items: doc.items.length, photos: doc.photos.length, revisions: doc.revisions.length })
     expect(res.body.people).toEqual({ matched: 4, toImporter: 0 })
 

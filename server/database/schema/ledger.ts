@@ -2,7 +2,7 @@
 // mappings and the team's ledger settings. Money is integer cents (int: up to 21 million dollars a row),
 // calendar dates are DATE columns, times UTC. Every index starts with team_id so queries stay in one team.
 import { bigint, boolean, char, date, index, int, json, mysqlEnum, mysqlTable, primaryKey, text, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core'
-import { createdAt, id, ref, teamId, timestamps, utcDatetime } from './columns'
+import { createdAt, id, ref, teamId, teamVersionColumns, timestamps, utcDatetime } from './columns'
 import { ITEM_STATUSES, STORE_KINDS } from '../../../shared/ledger/item-rules'
 import type { DamageFlag } from '../../../shared/ledger/item-rules'
 
@@ -174,3 +174,7 @@ export const importMappings = mysqlTable('import_mappings', {
   uniqueIndex('import_mappings_team_header_unique').on(t.teamId, t.headerKey),
   index('import_mappings_team_used_idx').on(t.teamId, t.lastUsedAt),
 ])
+
+// The team's ledger version: moved on inside every transaction that writes items (server/utils/ledger/versions.ts),
+// so the reports can reuse figures while it stands (server/utils/reports/cache.ts).
+export const ledgerVersions = mysqlTable('ledger_versions', teamVersionColumns())

@@ -1,8 +1,7 @@
 // The reference wiki: makers, marks, materials and categories, with revisions, timeline notes and links.
 // Every table is team-owned; every index starts with team_id so each query stays inside one team.
-import { sql } from 'drizzle-orm'
-import { bigint, boolean, date, datetime, index, int, json, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core'
-import { createdAt, id, ref, teamId, timestamps, utcDatetime } from './columns'
+import { boolean, date, index, int, json, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core'
+import { createdAt, id, ref, teamId, teamVersionColumns, timestamps, utcDatetime } from './columns'
 import { DATE_CONFIDENCES, MARK_TYPES, WIKI_ENTRY_TYPES } from '../../../shared/schemas/wiki'
 import type { MaterialChecks } from '../../../shared/schemas/wiki'
 
@@ -162,9 +161,4 @@ export const entryNotes = mysqlTable('entry_notes', {
 
 // A counter per team that every write to what an entry page shows moves on, in that write's own transaction:
 // an instance answers a page it built earlier only while the counter still reads the same (utils/wiki/page-cache.ts).
-export const wikiVersions = mysqlTable('wiki_versions', {
-  teamId: teamId().primaryKey(),
-  version: bigint('version', { mode: 'number', unsigned: true }).notNull().default(0),
-  // Set on every change too, so a database restored to an older counter never repeats a (version, time) pair.
-  changedAt: datetime('changed_at', { mode: 'date', fsp: 6 }).notNull().default(sql`CURRENT_TIMESTAMP(6)`),
-})
+export const wikiVersions = mysqlTable('wiki_versions', teamVersionColumns())

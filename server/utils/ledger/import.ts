@@ -9,6 +9,7 @@ import { and, asc, desc, eq, inArray, isNull } from 'drizzle-orm'
 import { csvCellValue } from '../../../shared/csv-cells'
 import { parseMoney } from '../../../shared/ledger/money'
 import { searchTrackItemSale } from '../search/popularity'
+import { ledgerFiguresChanged } from './versions'
 import { parseCsvDate, type DateOrder } from '../../../shared/ledger/import-values'
 import {
   checkItemConsistency, DAMAGE_FLAGS, ITEM_STATUSES, itemNetProfitCents, itemSaleFees, SALE_STATUSES, type DamageFlag, type ItemStatus,
@@ -406,6 +407,7 @@ export async function ledgerImportItems(access: TeamAccess, csvText: string, opt
       await recordTeamAudit(access, 'items.imported', {
         targetType: 'import', detail: { rows: report.rows, added: report.added, alreadyImported: report.alreadyImported, storesCreated: storesCreated.length, invalidRows: report.rows - report.validRows },
       }, tx)
+      await ledgerFiguresChanged(tx, teamId)
     })
   }
   catch (error) {

@@ -12,6 +12,7 @@ import {
 import { noteCreateSchema } from '../../../shared/schemas/wiki'
 import { searchTrackChange } from '../search/changes'
 import { searchTrackItemSale } from '../search/popularity'
+import { ledgerFiguresChanged } from './versions'
 import type { itemCreateSchema, itemFilterQuery, itemListQuery, itemPatchSchema, itemSaleSchema, itemStatusSchema } from '../../../shared/schemas/ledger'
 import type { LedgerItem, LedgerItemDetail, LedgerItemFields, LedgerItemTotals, LedgerStatusEvent } from '../../../shared/types/ledger'
 import { listEntryPhotos } from '../photos'
@@ -226,6 +227,7 @@ export async function itemCreate(access: TeamAccess, input: z.infer<typeof itemC
     const [{ id }] = await tx.insert(tables.items).values({ ...draft, teamId, createdBy: access.user.id, updatedBy: access.user.id } satisfies ItemInsert).$returningId() as [{ id: number }]
     await recordEvent(tx, teamId, id, null, draft.status, itemStatusDay(draft), access.user.id)
     await searchTrackItemSale(tx, teamId, id, [draft.status])
+    await ledgerFiguresChanged(tx, teamId)
     return id
   })
   return await itemGet(access, id)
@@ -273,6 +275,7 @@ export async function itemUpdate(access: TeamAccess, id: number, patch: z.infer<
       await writeItem(tx, access, id, revision, await itemFinishDraft(tx, teamId, draft, current))
       // A sold item's mark or maker may have changed: the sales counts follow.
       await searchTrackItemSale(tx, teamId, id, [current.status])
+      await ledgerFiguresChanged(tx, teamId)
     })
     return await itemGet(access, id)
   })
@@ -286,6 +289,7 @@ export async function itemDelete(access: TeamAccess, id: number) {
     await tx.delete(tables.itemStatusEvents).where(and(eq(tables.itemStatusEvents.teamId, teamId), eq(tables.itemStatusEvents.itemId, id)))
     await tx.delete(tables.items).where(and(eq(tables.items.id, id), eq(tables.items.teamId, teamId)))
     await searchTrackItemSale(tx, teamId, id, [current.status])
+    await ledgerFiguresChanged(tx, teamId)
     return { id, deleted: true }
   })
 }
@@ -328,6 +332,7 @@ export async function itemChangeStatus(access: TeamAccess, id: number, input: z.
       await writeItem(tx, access, id, current.revision, await itemFinishDraft(tx, teamId, draft, current))
       await recordEvent(tx, teamId, id, current.status, input.to, input.to === 'listed' ? draft.listedOn! : on, access.user.id)
       await searchTrackItemSale(tx, teamId, id, [current.status, input.to])
+      await ledgerFiguresChanged(tx, teamId)
     })
     return await itemGet(access, id)
   })
@@ -380,6 +385,7 @@ export async function itemRecordSale(access: TeamAccess, id: number, input: z.in
       await writeItem(tx, access, id, current.revision, await itemFinishDraft(tx, teamId, draft, current))
       await recordEvent(tx, teamId, id, current.status, 'sold', soldOn, access.user.id)
       await searchTrackItemSale(tx, teamId, id, ['sold'])
+      await ledgerFiguresChanged(tx, teamId)
       if (!input.note) return []
       const sold = itemPresent(await itemFindRow(tx, teamId, id))
       const { currency } = await ledgerSettingsOf(tx, teamId)

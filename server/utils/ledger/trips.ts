@@ -6,6 +6,7 @@ import type { z } from 'zod'
 import { tripFigures, tripMileageCents, type TripItemSums } from '../../../shared/ledger/item-rules'
 import type { tripCreateSchema, tripListQuery, tripPatchSchema } from '../../../shared/schemas/ledger'
 import type { LedgerTrip, LedgerTripTotals } from '../../../shared/types/ledger'
+import { ledgerFiguresChanged } from './versions'
 
 type TripRow = typeof tables.sourcingTrips.$inferSelect
 
@@ -214,6 +215,7 @@ export async function tripUpdate(access: TeamAccess, id: number, patch: z.infer<
       if (given.storeId !== undefined && given.storeId !== current.storeId) {
         // The trip's items came from the trip's store.
         await tx.update(tables.items).set({ storeId: given.storeId }).where(and(eq(tables.items.teamId, teamId), eq(tables.items.tripId, id)))
+        await ledgerFiguresChanged(tx, teamId)
       }
     })
   }

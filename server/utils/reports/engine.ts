@@ -19,7 +19,12 @@ import {
   reportGroupSoldStatsSql, reportRecentItemsSql, reportSoldTotalsSql, type BuyCheckLevel, type ReportMonthRange, type ReportSqlFilters, type ReportSqlInput,
 } from './sql'
 
-export type ReportExec = (query: SQL) => Promise<Record<string, unknown>[]>
+/**
+ * Runs one statement. `figures` marks a statement that reads only items and wiki tables: its answer may be reused
+ * while the team's ledger and wiki versions stand (cache.ts). Names of stores and people, fee profiles, targets
+ * and settings change without either version moving, so those statements are always run.
+ */
+export type ReportExec = (query: SQL, reads?: 'figures') => Promise<Record<string, unknown>[]>
 
 /** A 400 or 404 from the engine; the routes turn it into the API's error shape. */
 export class ReportProblem extends Error {
@@ -119,7 +124,7 @@ export async function reportCompute(exec: ReportExec, input: ReportComputeInput)
     const last = monthStart(minDay(filters.to ?? today, today))
     let first = filters.from
     if (!first) {
-      const [row] = await exec(reportFirstMonthSql({ teamId, dimension, filters, ageDay: today }))
+      const [row] = await exec(reportFirstMonthSql({ teamId, dimension, filters, ageDay: today }), 'figures')
       first = row?.first ? String(row.first) : undefined
     }
     if (first && monthsBetween(first, last) > REPORT_MAX_MONTHS) {
@@ -137,9 +142,9 @@ export async function reportCompute(exec: ReportExec, input: ReportComputeInput)
 
   // The grouped counts carry their totals (WITH ROLLUP); the month rows carry them too (see monthTotals).
   const [grouped, stats, totalStats] = await Promise.all([
-    dimension === 'month' ? (range ? exec(reportMonthCountsSql(sqlInput, range)) : Promise.resolve([])) : exec(reportCountsSql(sqlInput, true)),
-    exec(reportGroupSoldStatsSql(sqlInput)),
-    exec(reportSoldTotalsSql(sqlInput)),
+    dimension === 'month' ? (range ? exec(reportMonthCountsSql(sqlInput, range), 'figures') : Promise.resolve([])) : exec(reportCountsSql(sqlInput, true), 'figures'),
+    exec(reportGroupSoldStatsSql(sqlInput), 'figures'),
+    exec(reportSoldTotalsSql(sqlInput), 'figures'),
   ])
   const { groups: counts, totals: rollupTotals } = dimension === 'month' ? { groups: grouped, totals: monthTotals(grouped) } : splitRollup(grouped)
   const statsByGroup = new Map(stats.map(r => [groupKey(r.g), r as unknown as ReportStatsRow]))
@@ -200,9 +205,9 @@ export async function reportOutcomesCompute(exec: ReportExec, input: ReportOutco
     ageDay: minDay(input.to ?? input.today, input.today),
   }
   const [counts, stats, recent] = await Promise.all([
-    exec(reportCountsSql(sqlInput, false)),
-    exec(reportSoldTotalsSql(sqlInput)),
-    exec(reportRecentItemsSql(sqlInput, 10)),
+    exec(reportCountsSql(sqlInput, false), 'figures'),
+    exec(reportSoldTotalsSql(sqlInput), 'figures'),
+    exec(reportRecentItemsSql(sqlInput, 10), 'figures'),
   ])
   const day = (v: unknown) => v === null || v === undefined ? null : v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10)
   return {
@@ -241,7 +246,7 @@ export async function reportSourcingCompute(exec: ReportExec, input: ReportSourc
   const ageDay = minDay(filters.to ?? input.today, input.today)
   const [marks, makers] = await Promise.all((['mark', 'maker'] as const).map(async (type) => {
     const sqlInput: ReportSqlInput = { teamId: input.teamId, dimension: type, filters, ageDay }
-    const [counts, stats] = await Promise.all([exec(reportCountsSql(sqlInput, true)), exec(reportGroupSoldStatsSql(sqlInput))])
+    const [counts, stats] = await Promise.all([exec(reportCountsSql(sqlInput, true), 'figures'), exec(reportGroupSoldStatsSql(sqlInput), 'figures')])
     const byGroup = new Map(stats.map(r => [groupKey(r.g), r as unknown as ReportStatsRow]))
     const figures = splitRollup(counts).groups.filter(r => Number(r.g) > 0)
       .map(r => ({ id: Number(r.g), figures: reportFigures(r as unknown as ReportCountsRow, byGroup.get(groupKey(r.g))) }))

@@ -1,5 +1,5 @@
-// The routes' side of the reports: the engine (engine.ts) on the app's pool, its problems as API errors, the
-// CSV of a report and the owner's buy targets.
+// The routes' side of the reports: the engine (engine.ts) on the app's pool with its figures cached (cache.ts),
+// its problems as API errors, the CSV of a report and the owner's buy targets.
 import { and, eq } from 'drizzle-orm'
 import Papa from 'papaparse'
 import type { z } from 'zod'
@@ -8,11 +8,15 @@ import { centsToDecimalText } from '../../../shared/ledger/import-values'
 import type { buyCheckQuery, buyTargetsPatchSchema, outcomesQuery, reportQuery, ReportDimension, sourcingSheetQuery } from '../../../shared/schemas/reports'
 import type { BuyTargets, ReportResponse, ReportRow } from '../../../shared/reports/types'
 import { buyCheckCompute, buyCheckTargetsOf, reportCompute, reportOutcomesCompute, ReportProblem, reportSourcingCompute, type ReportExec } from './engine'
+import { reportCachingExec } from './cache'
 
 export const reportExec: ReportExec = async (statement) => {
   const [rows] = await useDb().execute(statement) as unknown as [Record<string, unknown>[]]
   return rows
 }
+
+/** The exec of one request: a report, the sourcing sheet and entry outcomes reuse figures while they hold. */
+const teamExec = (access: TeamAccess): ReportExec => reportCachingExec(access.team.id, reportExec)
 
 async function answer<T>(work: () => Promise<T>): Promise<T> {
   try {
@@ -26,7 +30,7 @@ async function answer<T>(work: () => Promise<T>): Promise<T> {
 
 export async function reportRun(access: TeamAccess, dimension: ReportDimension, query: z.infer<typeof reportQuery>): Promise<ReportResponse> {
   const { format: _format, ...filters } = query
-  return await answer(() => reportCompute(reportExec, { teamId: access.team.id, dimension, filters, today: ledgerToday() }))
+  return await answer(() => reportCompute(teamExec(access), { teamId: access.team.id, dimension, filters, today: ledgerToday() }))
 }
 
 export const REPORT_CSV_COLUMNS = [
@@ -48,11 +52,11 @@ export function reportCsv(report: ReportResponse): string {
 }
 
 export async function reportOutcomes(access: TeamAccess, query: z.infer<typeof outcomesQuery>) {
-  return await answer(() => reportOutcomesCompute(reportExec, { teamId: access.team.id, ...query, today: ledgerToday() }))
+  return await answer(() => reportOutcomesCompute(teamExec(access), { teamId: access.team.id, ...query, today: ledgerToday() }))
 }
 
 export async function reportSourcingSheet(access: TeamAccess, query: z.infer<typeof sourcingSheetQuery>) {
-  return await answer(() => reportSourcingCompute(reportExec, { teamId: access.team.id, filters: query, today: ledgerToday() }))
+  return await answer(() => reportSourcingCompute(teamExec(access), { teamId: access.team.id, filters: query, today: ledgerToday() }))
 }
 
 export async function buyCheckRun(access: TeamAccess, query: z.infer<typeof buyCheckQuery>) {

@@ -15,6 +15,8 @@ import type { WikiEntryType } from '../../../shared/schemas/wiki'
 import { useStorageDriver, type StorageDriver } from '../storage'
 import { searchTrackChanges, type SearchEntityType } from '../search/changes'
 import { wikiConfigs } from '../wiki/registry'
+import { wikiPageChanged } from '../wiki/versions'
+import { ledgerFiguresChanged } from '../ledger/versions'
 import {
   TRANSFER_JSON_NAME, TRANSFER_LIMITS, TRANSFER_MARKDOWN_FIELDS, transferEmptyEntryIds, transferPhotoExtension, transferRemapSnapshot,
   transferRewriteLinks,
@@ -325,6 +327,9 @@ async function writeTeam(access: TeamAccess, doc: TeamExport, photos: Map<number
     // Item 0 stands for all of the team's items: the sales counts search ranks marks by.
     if (itemIds.length) changes.push({ entityType: 'item', entityId: 0 })
     await searchTrackChanges(tx, teamId, changes)
+    // Reports and entry pages this team looked at before (empty ones) are out of date.
+    await ledgerFiguresChanged(tx, teamId)
+    await wikiPageChanged(tx, teamId)
 
     const summary = {
       imported: {

@@ -94,7 +94,7 @@ describe('report cache', () => {
     expect(await ledgerVersion()).toBe(version)
   })
 
-  it('sees wiki writes: a category moved under another rolls up there at once', async () => {
+  it('sees wiki writes: a category moved under another rolls up there at once, a mark renamed is named anew', async () => {
     const parent = await createEntry(team.owner, team, 'categories', { name: 'Fern Tableware' })
     const child = await createEntry(team.owner, team, 'categories', { name: 'Fern Cups' })
     await newItem(team.contributor, team, { categoryId: child, costCents: 200 })
@@ -108,6 +108,13 @@ describe('report cache', () => {
     const after = await keys()
     expect(after).toContain(parent)
     expect(after).not.toContain(child)
+
+    // A mark's new title is its row's label straight away.
+    const label = async () => (await report()).rows.find((r: any) => r.key === markId)?.label
+    expect(await label()).toBe('Crowned Fern')
+    const [mark] = await query<{ revision: number }>('select revision from marks where id = ?', [markId])
+    ok(await team.owner.patch(team.api(`/marks/${markId}`), { revision: mark!.revision, title: 'Crowned Fern, later' }))
+    expect(await label()).toBe('Crowned Fern, later')
   })
 
   it('reads names fresh: a store renamed without any item write shows its new name', async () => {

@@ -20,9 +20,9 @@ import {
 } from './sql'
 
 /**
- * Runs one statement. `figures` marks a statement that reads only items and wiki tables: its answer may be reused
- * while the team's ledger and wiki versions stand (cache.ts). Names of stores and people, fee profiles, targets
- * and settings change without either version moving, so those statements are always run.
+ * Runs one statement. `figures` marks a statement that reads only items and wiki entries: its answer may be
+ * reused while the team's ledger and wiki versions stand (cache.ts). Names of stores and people, fee profiles,
+ * targets and settings change without either version moving, so those statements are always run.
  */
 export type ReportExec = (query: SQL, reads?: 'figures') => Promise<Record<string, unknown>[]>
 
@@ -97,14 +97,15 @@ function splitRollup(rows: Record<string, unknown>[]): { groups: Record<string, 
 }
 
 async function categoryName(exec: ReportExec, teamId: number, id: number): Promise<string> {
-  const [row] = await exec(sql`SELECT name FROM categories WHERE team_id = ${teamId} AND id = ${id}`)
+  const [row] = await exec(sql`SELECT name FROM categories WHERE team_id = ${teamId} AND id = ${id}`, 'figures')
   if (!row) throw new ReportProblem(404, `No category with id ${id} in this team.`)
   return String(row.name)
 }
 
 async function labelsOf(exec: ReportExec, teamId: number, dimension: Exclude<ReportDimension, 'month'>, ids: number[]) {
   const statement = reportLabelsSql(teamId, dimension, ids)
-  const rows = statement ? await exec(statement) : []
+  // Entries' names move the wiki version on when they change; stores' and people's names do not.
+  const rows = statement ? await exec(statement, dimension === 'store' || dimension === 'member' ? undefined : 'figures') : []
   return new Map(rows.map(r => [Number(r.id), { label: String(r.label ?? ''), deleted: Boolean(Number(r.deleted)) }]))
 }
 
@@ -197,7 +198,7 @@ export interface ReportOutcomesInput { teamId: number, type: OutcomeType, id: nu
 
 export async function reportOutcomesCompute(exec: ReportExec, input: ReportOutcomesInput): Promise<OutcomesResponse> {
   const meta = OUTCOME_TABLES[input.type]
-  const [entry] = await exec(sql`SELECT ${sql.raw(meta.name)} AS name FROM ${sql.raw(meta.table)} WHERE team_id = ${input.teamId} AND id = ${input.id}`)
+  const [entry] = await exec(sql`SELECT ${sql.raw(meta.name)} AS name FROM ${sql.raw(meta.table)} WHERE team_id = ${input.teamId} AND id = ${input.id}`, 'figures')
   if (!entry) throw new ReportProblem(404, `No ${input.type} with id ${input.id} in this team.`)
   const sqlInput: ReportSqlInput = {
     teamId: input.teamId, dimension: input.type,

@@ -167,6 +167,16 @@ describe('with no signal', () => {
     await hydrated(page)
     await page.getByRole('heading', { name: 'Easily confused with' }).waitFor()
     await page.getByRole('link', { name: 'HEMSLEY & DRAKE' }).waitFor()
+
+    // The buy check for that mark: no figures without the server, but its dating clues, read from the
+    // phone's copy of the mark (MADE IN ENGLAND: shared/dating/rules.ts), still show at the shelf.
+    await page.goto(`/t/${slug}/buy-check?markId=${ids.tolland}`)
+    await hydrated(page)
+    const clues = page.getByTestId('dating-clues')
+    await expect.poll(() => clues.getByRole('heading').textContent().then(t => t?.trim())).toBe('Dating clues: 1921 or later')
+    await expect.poll(() => page.getByTestId('buy-check-subject').textContent()).toMatch(/TOLLANDER WARE/)
+    await page.getByText('No signal: the check needs the team\'s sales from the server.', { exact: false }).waitFor()
+    await shot(page, 'offline-phone-buy-check-dating')
   })
 
   it('queues a note, an item and an inscription that survive a reload, and sends them when the signal is back; a conflict shows both versions', { timeout: 120_000 }, async () => {

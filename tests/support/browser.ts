@@ -15,8 +15,9 @@ export async function launchBrowser(): Promise<Browser> {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
       '--disable-component-update', '--disable-sync'],
-    // playwright gives each browser a fresh profile in a temp dir of its own.
-    env: { ...process.env, HOME: mkdtempSync(join(tmpdir(), 'tallymark-chromium-')) },
+    // playwright gives each browser a fresh profile in a temp dir of its own; HOME goes under the test run's temp
+    // folder (npm test removes it at the end), so runs leave nothing behind in /tmp.
+    env: { ...process.env, HOME: mkdtempSync(join(process.env.TALLYMARK_TEST_TMP || tmpdir(), 'tallymark-chromium-')) },
   })
 }
 

@@ -71,7 +71,7 @@ afterAll(async () => {
 describe('installable app', () => {
   it('has a manifest with its own icons, an active service worker and no installability errors', async () => {
     // A normal (not incognito) profile: Chromium does not offer to install from an incognito window.
-    const context = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'tallymark-install-')), {
+    const context = await chromium.launchPersistentContext(mkdtempSync(join(process.env.TALLYMARK_TEST_TMP || tmpdir(), 'tallymark-install-')), {
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
       args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
       baseURL: baseUrl, viewport: PHONE,
@@ -241,7 +241,7 @@ describe('with no signal', () => {
   })
 
   it('reads a base from a photo with no signal and finds its mark', { timeout: 120_000 }, async () => {
-    const dir = mkdtempSync(join(tmpdir(), 'tallymark-ocr-'))
+    const dir = mkdtempSync(join(process.env.TALLYMARK_TEST_TMP || tmpdir(), 'tallymark-ocr-'))
     const file = join(dir, 'base.png')
     writeFileSync(file, await renderInscription({ lines: ['BRISKWATER', 'GLASS WORKS'], font: 'DejaVu Serif', size: 40, rotation: 90, noisy: false, seed: 7 }))
     await page.goto(`/t/${slug}/read-base`)

@@ -23,6 +23,9 @@ import { computeFees, type FeeProfile } from '../../shared/ledger/fees'
 import { itemNetProfitCents, type ItemStatus } from '../../shared/ledger/item-rules'
 import { buyCheckCompute, reportCompute, reportOutcomesCompute, reportSourcingCompute, type ReportExec } from '../../server/utils/reports/engine'
 import { REPORT_DIMENSIONS } from '../../shared/schemas/reports'
+import { drizzle } from 'drizzle-orm/mysql2'
+import * as schema from '../../server/database/schema'
+import { ledgerFiguresChanged } from '../../server/utils/ledger/versions'
 
 const args = process.argv.slice(2)
 const option = (name: string, fallback: number) => {
@@ -238,9 +241,9 @@ try {
     await new Promise(resolve => process.once('SIGINT', resolve))
   }
 
-  // What every item write does in its transaction (server/utils/ledger/versions.ts), so the app computes again.
-  const ledgerWrite = (teamId: number) => pool.query(
-    'INSERT INTO ledger_versions (team_id, version) VALUES (?, 1) ON DUPLICATE KEY UPDATE version = version + 1, changed_at = CURRENT_TIMESTAMP(6)', [teamId])
+  // What every item write does in its transaction, so the app computes its figures again.
+  const db = drizzle(pool, { schema, mode: 'default' })
+  const ledgerWrite = (teamId: number) => ledgerFiguresChanged(db, teamId)
   const dialect = new MySqlDialect()
   const exec: ReportExec = async (statement: SQL) => {
     const query = dialect.sqlToQuery(statement)

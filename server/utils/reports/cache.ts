@@ -7,6 +7,9 @@
 import { LRUCache } from 'lru-cache'
 import { sql, type SQL } from 'drizzle-orm'
 import { MySqlDialect } from 'drizzle-orm/mysql-core'
+import { ledgerVersions } from '../../database/schema/ledger'
+import { wikiVersions } from '../../database/schema/wiki'
+import { teamVersionColumn } from '../team-versions'
 import type { ReportExec } from './engine'
 
 type Rows = Record<string, unknown>[]
@@ -21,10 +24,9 @@ const figures = new LRUCache<string, Rows>({
 const dialect = new MySqlDialect()
 
 /** The statement behind the team's two versions, as one string ('-' for a team that never wrote). */
-export function reportVersionsSql(teamId: number): SQL {
-  return sql`SELECT CONCAT_WS('|',
-    COALESCE((SELECT CONCAT(version, ' ', changed_at) FROM ledger_versions WHERE team_id = ${teamId}), '-'),
-    COALESCE((SELECT CONCAT(version, ' ', changed_at) FROM wiki_versions WHERE team_id = ${teamId}), '-')) AS versions`
+function reportVersionsSql(teamId: number): SQL {
+  return sql`SELECT CONCAT_WS('|', COALESCE(${teamVersionColumn(ledgerVersions, teamId)}, '-'),
+    COALESCE(${teamVersionColumn(wikiVersions, teamId)}, '-')) AS versions`
 }
 
 /**

@@ -7,6 +7,8 @@ import type { WikiEntryType } from '../../../shared/schemas/wiki'
 import type { DbOrTx } from '../db'
 import { entryPhoto } from '../photos'
 import { wikiConfigs } from './registry'
+import { wikiVersions } from '../../database/schema/wiki'
+import { teamVersionColumn } from '../team-versions'
 import { wikiJsonRows, wikiRows, type WikiBaseRow, type WikiTypeConfig } from './types'
 
 export interface WikiDetail {
@@ -25,8 +27,7 @@ export interface WikiDetail {
 export interface WikiPageVersions { team: string | null, entry: string | null }
 
 /** The team's wiki version (versions.ts) as one string. */
-export const wikiTeamVersionColumn = (teamId: number) =>
-  sql<string | null>`(select concat(v.version, ' ', v.changed_at) from wiki_versions v where v.team_id = ${teamId})`
+export const wikiTeamVersionColumn = (teamId: number) => teamVersionColumn(wikiVersions, teamId)
 
 /** An entry row's own version (revision, last update, deletion) as one string. */
 export const wikiEntryVersionColumn = (entry: SQL) => sql<string | null>`concat_ws(' ', ${entry}.revision, ${entry}.updated_at, ${entry}.deleted_at)`
